@@ -1,0 +1,50 @@
+/** One config, several projects: pure knowledge, API (supertest on in-memory PGlite), components, soak. */
+const esmPackages = [
+  "better-auth",
+  "@better-auth",
+  "better-call",
+  "file-type",
+  "strtok3",
+  "token-types",
+  "peek-readable",
+  "uint8array-extras",
+  "@tokenizer",
+  "jose",
+  "nanostores",
+  "@noble",
+  "rou3",
+  "defu",
+  "uncrypto",
+  "kysely",
+  "@electric-sql",
+].join("|");
+
+const swc = [
+  "@swc/jest",
+  {
+    jsc: { parser: { syntax: "typescript", tsx: true }, target: "es2022", transform: { react: { runtime: "automatic" } } },
+    module: { type: "commonjs" },
+  },
+];
+
+const nodeProject = (name, roots) => ({
+  displayName: name,
+  testEnvironment: "node",
+  testMatch: roots.map((r) => `<rootDir>/tests/${r}/**/*.test.ts`),
+  transform: { "^.+\\.(t|j|mj)sx?$": swc },
+  transformIgnorePatterns: [`/node_modules/(?!(${esmPackages})/)`],
+  moduleNameMapper: { "^file-type$": "<rootDir>/node_modules/file-type/index.js" },
+});
+
+module.exports = {
+  projects: [
+    nodeProject("knowledge", ["unit", "reference"]),
+    { ...nodeProject("api", ["api"]), testTimeout: 30000 },
+    { ...nodeProject("soak", ["soak"]), testTimeout: 600000 },
+    {
+      displayName: "ui",
+      preset: "jest-expo",
+      testMatch: ["<rootDir>/tests/ui/**/*.test.tsx"],
+    },
+  ],
+};
