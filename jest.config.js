@@ -31,16 +31,17 @@ const nodeProject = (name, roots) => ({
   displayName: name,
   testEnvironment: "node",
   testMatch: roots.map((r) => `<rootDir>/tests/${r}/**/*.test.ts`),
-  transform: { "^.+\\.(t|j|mj)sx?$": swc },
+  transform: { "^.+\\.(t|j|mj|cj)sx?$": swc },
   transformIgnorePatterns: [`/node_modules/(?!(${esmPackages})/)`],
   moduleNameMapper: { "^file-type$": "<rootDir>/node_modules/file-type/index.js" },
 });
 
 module.exports = {
+  testTimeout: 60000,
   projects: [
     nodeProject("knowledge", ["unit", "reference"]),
-    { ...nodeProject("api", ["api"]), testTimeout: 30000 },
-    { ...nodeProject("soak", ["soak"]), testTimeout: 600000 },
+    nodeProject("api", ["api"]),
+    nodeProject("soak", ["soak"]),
     {
       displayName: "ui",
       preset: "jest-expo",

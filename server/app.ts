@@ -1,0 +1,88 @@
+import fs from "node:fs";
+import path from "node:path";
+import express, { type Router } from "express";
+import helmet from "helmet";
+import { toNodeHandler } from "better-auth/node";
+import type { Database } from "../db/client";
+import { createAuth } from "./auth";
+import type { AppDeps } from "./deps";
+import type { Mailer } from "./mail";
+import { apiNotFound, errorHandler } from "./middleware/errors";
+import { loadSession } from "./middleware/session";
+import { groupsRouter } from "./routes/groups";
+import { healthRouter } from "./routes/health";
+
+export interface CreateAppOptions {
+  db: Database;
+  dbKind: "pglite" | "postgres";
+  mail: Mailer;
+  baseURL?: string;
+  secret?: string;
+  trustedOrigins?: string[];
+  dataDir?: string;
+  /** Folder of the exported web app; served with a client-side fallback when present. */
+  webDir?: string;
+  rateLimit?: { enabled: boolean; window?: number; max?: number };
+  quiet?: boolean;
+}
+
+/** Each area adds its router here (one line). Routers mount under /api. */
+const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter];
+
+export function createApp(options: CreateAppOptions) {
+  const baseURL = options.baseURL ?? "http://localhost:3000";
+  const auth = createAuth({
+    db: options.db,
+    mail: options.mail,
+    baseURL,
+    secret: options.secret ?? "phasewise-development-secret-change-me",
+    trustedOrigins: [baseURL, ...(options.trustedOrigins ?? [])],
+    rateLimit: options.rateLimit,
+    quiet: options.quiet,
+  });
+  const deps: AppDeps = {
+    db: options.db,
+    dbKind: options.dbKind,
+    auth,
+    mail: options.mail,
+    baseURL,
+    dataDir: options.dataDir ?? "./data",
+  };
+
+  const app = express();
+  app.disable("x-powered-by");
+  app.set("trust proxy", "loopback");
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          "default-src": ["'self'"],
+          "script-src": ["'self'", "'unsafe-inline'"],
+          "style-src": ["'self'", "'unsafe-inline'"],
+          "img-src": ["'self'", "data:", "blob:"],
+          "font-src": ["'self'", "data:"],
+          "connect-src": ["'self'", "ws:", "wss:"],
+        },
+      },
+    }),
+  );
+  // The sign-in rate limit keys on the client address; pass the socket's, never a client-sent header.
+  app.use((req, _res, next) => {
+    req.headers["x-phasewise-client-ip"] = req.socket.remoteAddress ?? "unknown";
+    next();
+  });
+  // better-auth reads its own body: mount it before express.json().
+  app.all("/api/auth/*splat", toNodeHandler(auth));
+  app.use(express.json({ limit: "1mb" }));
+  app.use("/api", loadSession(auth));
+  for (const make of AREA_ROUTERS) app.use("/api", make(deps));
+  app.use("/api", apiNotFound);
+
+  if (options.webDir && fs.existsSync(path.join(options.webDir, "index.html"))) {
+    const webDir = path.resolve(options.webDir);
+    app.use(express.static(webDir, { index: false, maxAge: "1h" }));
+    app.get("/{*splat}", (_req, res) => res.sendFile(path.join(webDir, "index.html")));
+  }
+  app.use(errorHandler);
+  return { app, auth, deps };
+}

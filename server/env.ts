@@ -1,0 +1,29 @@
+import { z } from "zod";
+
+/** The environment, parsed once. Nothing else reads process.env. */
+const schema = z.object({
+  PORT: z.coerce.number().int().min(1).max(65535).default(3000),
+  DATABASE_URL: z.string().url().optional(),
+  PHASEWISE_DATA_DIR: z.string().default("./data"),
+  PHASEWISE_DEMO: z.string().default("1"),
+  BETTER_AUTH_SECRET: z.string().min(16).optional(),
+  PUBLIC_URL: z.string().url().optional(),
+  SMTP_URL: z.string().optional(),
+  MAIL_FROM: z.string().default("Phasewise <no-reply@phasewise.invalid>"),
+  PHASEWISE_S3_BUCKET: z.string().optional(),
+  PHASEWISE_S3_ENDPOINT: z.string().optional(),
+  PHASEWISE_S3_REGION: z.string().default("us-east-1"),
+  PHASEWISE_S3_ACCESS_KEY: z.string().optional(),
+  PHASEWISE_S3_SECRET_KEY: z.string().optional(),
+  NODE_ENV: z.string().default("development"),
+});
+
+export type Env = z.infer<typeof schema>;
+
+export function readEnv(source: NodeJS.ProcessEnv = process.env): Env {
+  const parsed = schema.safeParse(source);
+  if (!parsed.success) {
+    throw new Error(`Bad environment: ${parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ")}`);
+  }
+  return parsed.data;
+}
