@@ -1,0 +1,209 @@
+import Fuse from "fuse.js";
+import { AQUEOUS_SOLUTES } from "./aqueous";
+import { densityAtMassFractionGPerMl, toMassFractionPct } from "./concentration";
+import { SOLVENTS } from "./solvents";
+import type { AqueousSolute, Concentration, ReferenceData, Solvent } from "./types";
+import { KnowledgeInputError } from "./types";
+
+export const SHIPPED_REFERENCE: ReferenceData = { solvents: SOLVENTS, solutes: AQUEOUS_SOLUTES };
+
+/** Lower case, without spaces or punctuation: "1,2-DCE" → "12dce", "75-09-2" → "75092". */
+export function normaliseName(text: string): string {
+  return text
+    .normalize("NFKD")
+    .replace(/[\u0300-\u036f]/g, "")
+    .toLowerCase()
+    .replace(/[^a-z0-9]/g, "");
+}
+
+interface Named {
+  key: string;
+  name: string;
+  synonyms: string[];
+  cas: string;
+  formula: string;
+}
+
+interface Index<T extends Named> {
+  exact: Map<string, T>;
+  formula: Map<string, T[]>;
+  fuse: Fuse<{ item: T; names: string[]; normal: string[] }>;
+}
+
+/** Fuse score (0 = perfect) at or under which a single fuzzy hit is taken as the answer. */
+export const CONFIDENT_FUZZY_SCORE = 0.15;
+/** A confident hit must also beat the runner-up by this much, so "chloro" is not a guess. */
+export const FUZZY_MARGIN = 0.1;
+
+function buildIndex<T extends Named>(items: T[]): Index<T> {
+  const exact = new Map<string, T>();
+  const formula = new Map<string, T[]>();
+  for (const item of items) {
+    for (const n of [item.key, item.name, item.cas, ...item.synonyms]) {
+      const k = normaliseName(n);
+      // First entry wins so a synonym cannot steal another entry's own name.
+      if (k !== "" && !exact.has(k)) exact.set(k, item);
+    }
+    const f = normaliseName(item.formula);
+    formula.set(f, [...(formula.get(f) ?? []), item]);
+  }
+  // Own key and name outrank someone else's synonym.
+  for (const item of items) {
+    exact.set(normaliseName(item.key), item);
+    exact.set(normaliseName(item.name), item);
+  }
+  const docs = items.map((item) => {
+    const names = [item.name, item.key, ...item.synonyms, item.cas, item.formula];
+    return { item, names, normal: names.map(normaliseName) };
+  });
+  const fuse = new Fuse(docs, {
+    keys: [
+      { name: "names", weight: 1 },
+      { name: "normal", weight: 0.7 },
+    ],
+    includeScore: true,
+    ignoreLocation: true,
+    threshold: 0.4,
+  });
+  return { exact, formula, fuse };
+}
+
+const solventIndexes = new WeakMap<ReferenceData, Index<Solvent>>();
+const soluteIndexes = new WeakMap<ReferenceData, Index<AqueousSolute>>();
+
+function cached<T extends Named>(cache: WeakMap<ReferenceData, Index<T>>, ref: ReferenceData, items: T[]): Index<T> {
+  let idx = cache.get(ref);
+  if (!idx) {
+    idx = buildIndex(items);
+    cache.set(ref, idx);
+  }
+  return idx;
+}
+
+const solventIndex = (ref: ReferenceData) => cached(solventIndexes, ref, ref.solvents);
+const soluteIndex = (ref: ReferenceData) => cached(soluteIndexes, ref, ref.solutes);
+
+function find<T extends Named>(idx: Index<T>, query: string): T | undefined {
+  const q = normaliseName(String(query ?? ""));
+  if (q === "") return undefined;
+  const hit = idx.exact.get(q);
+  if (hit) return hit;
+  const byFormula = idx.formula.get(q);
+  if (byFormula && byFormula.length === 1) return byFormula[0];
+  const results = idx.fuse.search(String(query).trim(), { limit: 2 });
+  const best = results[0];
+  if (!best || best.score === undefined || best.score > CONFIDENT_FUZZY_SCORE) return undefined;
+  const runnerUp = results[1];
+  if (runnerUp && runnerUp.item.item !== best.item.item && (runnerUp.score ?? 1) - best.score < FUZZY_MARGIN) return undefined;
+  return best.item.item;
+}
+
+function suggest<T extends Named>(idx: Index<T>, query: string, limit: number): T[] {
+  const q = String(query ?? "").trim();
+  if (q === "") return [];
+  const out: T[] = [];
+  const exact = find(idx, q);
+  if (exact) out.push(exact);
+  for (const r of idx.fuse.search(q, { limit: limit + 1 })) {
+    if (!out.includes(r.item.item)) out.push(r.item.item);
+  }
+  return out.slice(0, limit);
+}
+
+/** Exact match on key, name, synonym, CAS or (unambiguous) formula, ignoring case, spaces and punctuation; else a confident fuzzy match. */
+export function findSolvent(query: string, ref: ReferenceData = SHIPPED_REFERENCE): Solvent | undefined {
+  return find(solventIndex(ref), query);
+}
+
+export function suggestSolvents(query: string, ref: ReferenceData = SHIPPED_REFERENCE, limit = 5): Solvent[] {
+  return suggest(solventIndex(ref), query, limit);
+}
+
+export function findSolute(query: string, ref: ReferenceData = SHIPPED_REFERENCE): AqueousSolute | undefined {
+  return find(soluteIndex(ref), query);
+}
+
+export function suggestSolutes(query: string, ref: ReferenceData = SHIPPED_REFERENCE, limit = 5): AqueousSolute[] {
+  return suggest(soluteIndex(ref), query, limit);
+}
+
+/** findSolvent, or a KnowledgeInputError naming the field with the closest names. */
+export function requireSolvent(query: string, field: string, ref: ReferenceData = SHIPPED_REFERENCE): Solvent {
+  const s = typeof query === "string" ? findSolvent(query, ref) : undefined;
+  if (s) return s;
+  const suggestions = typeof query === "string" ? suggestSolvents(query, ref).map((x) => x.name) : [];
+  throw new KnowledgeInputError(field, `Unknown solvent "${String(query)}".`, suggestions);
+}
+
+export function requireSolute(query: string, field: string, ref: ReferenceData = SHIPPED_REFERENCE): AqueousSolute {
+  const s = typeof query === "string" ? findSolute(query, ref) : undefined;
+  if (s) return s;
+  const suggestions = typeof query === "string" ? suggestSolutes(query, ref).map((x) => x.name) : [];
+  throw new KnowledgeInputError(field, `Unknown aqueous solute "${String(query)}".`, suggestions);
+}
+
+// ── temperature ──────────────────────────────────────────────────────────────
+
+/**
+ * Temperatures the layer check accepts. 0 °C is where water freezes; above 60 °C a
+ * separatory funnel is no longer a bench operation, and the aqueous temperature
+ * correction (below) has not been checked beyond it.
+ */
+export const MIN_TEMPERATURE_C = 0;
+export const MAX_TEMPERATURE_C = 60;
+
+/** Pure-water density (g/mL) from Kell's 1975 equation, 0–150 °C. */
+export function waterDensityGPerMl(temperatureC: number): number {
+  const t = temperatureC;
+  const num =
+    999.83952 + 16.945176 * t - 7.9870401e-3 * t ** 2 - 46.170461e-6 * t ** 3 + 105.56302e-9 * t ** 4 - 280.54253e-12 * t ** 5;
+  return num / (1 + 16.87985e-3 * t) / 1000;
+}
+
+export function checkTemperature(temperatureC: number, field = "temperatureC"): void {
+  if (typeof temperatureC !== "number" || !Number.isFinite(temperatureC)) {
+    throw new KnowledgeInputError(field, "The temperature must be a number in °C.");
+  }
+  if (temperatureC < MIN_TEMPERATURE_C || temperatureC > MAX_TEMPERATURE_C) {
+    throw new KnowledgeInputError(
+      field,
+      `The layer check covers ${MIN_TEMPERATURE_C}–${MAX_TEMPERATURE_C} °C (got ${temperatureC} °C).`,
+    );
+  }
+}
+
+/**
+ * Density of a pure solvent at a temperature, linear in T from the 20 °C value (water uses
+ * Kell's equation). Refuses temperatures at or below the melting point and at or above the
+ * normal boiling point, where the liquid is not what the table describes.
+ */
+export function solventDensityGPerMl(solvent: Solvent, temperatureC: number, field = "temperatureC"): number {
+  if (typeof temperatureC !== "number" || !Number.isFinite(temperatureC)) {
+    throw new KnowledgeInputError(field, "The temperature must be a number in °C.");
+  }
+  if (temperatureC <= solvent.meltingPointC.value) {
+    throw new KnowledgeInputError(field, `${solvent.name} freezes at ${solvent.meltingPointC.value} °C; ${temperatureC} °C is too cold.`);
+  }
+  if (temperatureC >= solvent.boilingPointC.value) {
+    throw new KnowledgeInputError(field, `${solvent.name} boils at ${solvent.boilingPointC.value} °C; ${temperatureC} °C is too hot.`);
+  }
+  if (solvent.key === "water") return waterDensityGPerMl(temperatureC);
+  return solvent.densityGPerMl20C.value + solvent.densityTempCoeffGPerMlPerK.value * (temperatureC - 20);
+}
+
+/**
+ * Density of an aqueous solution at a temperature: the 20 °C table value scaled by
+ * ρ_water(T)/ρ_water(20 °C). An approximation: salt solutions expand somewhat more than water,
+ * so away from 20 °C strong solutions are off by up to a few thousandths of a g/mL.
+ */
+export function aqueousDensityGPerMl(
+  solute: AqueousSolute,
+  concentration: Concentration | undefined,
+  temperatureC: number,
+  field = "aqueous.concentration",
+): number {
+  checkTemperature(temperatureC);
+  const w = toMassFractionPct(solute, concentration, field);
+  const rho20 = densityAtMassFractionGPerMl(solute, w, field);
+  return (rho20 * waterDensityGPerMl(temperatureC)) / waterDensityGPerMl(20);
+}
