@@ -41,11 +41,6 @@ export const SOURCES: Record<string, SourceEntry> = {
       "Riddick, Bunger & Sakano, Organic Solvents: Physical Properties and Methods of Purification, 4th ed. (Wiley, 1986), densities at 20 and 25 °C — recalled from memory, not re-read",
     kind: "from-memory",
   },
-  "crc-expansion-from-memory": {
-    title:
-      "CRC Handbook of Chemistry and Physics, 'Cubical expansion coefficients of liquids' (dρ/dT = −αρ) — recalled from memory, not re-read",
-    kind: "from-memory",
-  },
   "smallwood-from-memory": {
     title: "Smallwood, Handbook of Organic Solvent Properties (Arnold, 1996) — recalled from memory, not re-read",
     kind: "from-memory",
@@ -87,18 +82,23 @@ export const SOURCES: Record<string, SourceEntry> = {
   },
   "kell-1975-from-memory": {
     title:
-      "Kell, G. S. 'Density, thermal expansivity, and compressibility of liquid water from 0° to 150 °C', J. Chem. Eng. Data 1975, 20, 97–105, density equation — coefficients recalled from memory",
+      "Kell, G. S. 'Density, thermal expansivity, and compressibility of liquid water from 0° to 150 °C', J. Chem. Eng. Data 1975, 20, 97–105, density equation — coefficients recalled from memory and checked in the tests against Perry's DIPPR water correlation (read)",
     kind: "from-memory",
   },
-  "crc-aqueous-from-memory": {
+  "crc-aqueous-2021": {
     title:
-      "CRC Handbook of Chemistry and Physics (97th ed., 2016), 'Concentrative properties of aqueous solutions: density, refractive index, freezing point depression, and viscosity', density at 20 °C vs mass % — recalled from memory, not re-read",
-    kind: "from-memory",
+      "CRC Handbook of Chemistry and Physics, 102nd ed. (2021), 'Concentrative properties of aqueous solutions: density, refractive index, freezing point depression, and viscosity', density at 20 °C vs mass % — read from a public tab-separated transcription of the table",
+    kind: "handbook",
   },
-  "perry-from-memory": {
+  "crc-aqueous-2021-perry-from-memory": {
     title:
-      "Perry's Chemical Engineers' Handbook, 8th ed. (McGraw-Hill, 2008), Section 2, densities of aqueous inorganic solutions and of aqueous ammonia — recalled from memory, not re-read",
-    kind: "from-memory",
+      "CRC Handbook of Chemistry and Physics, 102nd ed. (2021), concentrative-properties table (read, to 40 %), extended to 50 % with densities recalled from memory from Perry's Chemical Engineers' Handbook, 8th ed., Section 2, sodium hydroxide solutions",
+    kind: "handbook",
+  },
+  "perry-dippr-2008": {
+    title:
+      "Perry's Chemical Engineers' Handbook, 8th ed. (2008), Table 2-32, DIPPR-105 liquid-density correlations ρ = C1/C2^(1+(1−T/C3)^C4) mol/dm³ — coefficients read from a public transcription in an open-source property library",
+    kind: "handbook",
   },
   "crc-solubility-from-memory": {
     title:
