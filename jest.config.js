@@ -42,10 +42,22 @@ module.exports = {
     nodeProject("knowledge", ["unit", "reference"]),
     nodeProject("api", ["api"]),
     nodeProject("soak", ["soak"]),
+    nodeProject("e2e", ["e2e"]),
     {
       displayName: "ui",
       preset: "jest-expo",
       testMatch: ["<rootDir>/tests/ui/**/*.test.tsx"],
+      // The preset's transforms, plus .mjs/.cjs through the same babel setup for ESM-only packages.
+      transform: (() => {
+        const preset = require("jest-expo/jest-preset").transform;
+        const js = preset["\\.[jt]sx?$"];
+        return { ...preset, "\\.[mc]js$": js };
+      })(),
+      transformIgnorePatterns: [
+        `/node_modules/(?!(.pnpm|react-native|@react-native|@react-native-community|expo|@expo|@expo-google-fonts|react-navigation|@react-navigation|${esmPackages}))`,
+        "/node_modules/react-native-reanimated/plugin/",
+        "/node_modules/@react-native/babel-preset/",
+      ],
     },
   ],
 };

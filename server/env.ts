@@ -21,7 +21,9 @@ const schema = z.object({
 export type Env = z.infer<typeof schema>;
 
 export function readEnv(source: NodeJS.ProcessEnv = process.env): Env {
-  const parsed = schema.safeParse(source);
+  // An empty variable means "not set".
+  const cleaned = Object.fromEntries(Object.entries(source).filter(([, v]) => v !== undefined && v !== ""));
+  const parsed = schema.safeParse(cleaned);
   if (!parsed.success) {
     throw new Error(`Bad environment: ${parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ")}`);
   }

@@ -1,0 +1,3 @@
+import { GroupScreen } from "../../components/group/group-screen";
+
+export default GroupScreen;

@@ -1,0 +1,3 @@
+import { HomeScreen } from "../../components/shell/home-screen";
+
+export default HomeScreen;

@@ -1,0 +1,15 @@
+import type { IconName } from "../ui/icon";
+
+export interface NavItem {
+  href: string;
+  label: string;
+  icon: IconName;
+  /** path prefix that marks the item active */
+  match: string;
+}
+
+/** Each area adds one entry here (and a route group under app/(app)/). */
+export const NAV_ITEMS: NavItem[] = [
+  { href: "/", label: "Home", icon: "home", match: "/" },
+  { href: "/group", label: "Group", icon: "group", match: "/group" },
+];
