@@ -150,6 +150,20 @@ export function validateLayerInput(input: unknown): LayerInput {
   return input as LayerInput;
 }
 
+/**
+ * Organic phase by ideal volume-additive mixing: ρ = (Σ Vᵢρᵢ + m) / (Σ Vᵢ + m/ρₘ), where m grams
+ * of dissolved material occupy m/ρₘ mL. Densities must already be at the working temperature.
+ */
+export function mixOrganic(
+  parts: { volumeMl: number; densityGPerMl: number }[],
+  dissolvedG = 0,
+  dissolvedDensityGPerMl = DEFAULT_DISSOLVED_DENSITY_G_PER_ML,
+): { volumeMl: number; densityGPerMl: number } {
+  const volume = parts.reduce((sum, p) => sum + p.volumeMl, 0) + dissolvedG / dissolvedDensityGPerMl;
+  const mass = parts.reduce((sum, p) => sum + p.volumeMl * p.densityGPerMl, 0) + dissolvedG;
+  return { volumeMl: volume, densityGPerMl: mass / volume };
+}
+
 function classify(absDifference: number): Exclude<LayerConfidence, "one-phase"> {
   if (absDifference >= CLEAR_DENSITY_DIFFERENCE_G_PER_ML) return "clear";
   if (absDifference >= TOO_CLOSE_DENSITY_DIFFERENCE_G_PER_ML) return "close";
@@ -206,14 +220,12 @@ export function predictLayers(input: LayerInput, ref: ReferenceData = SHIPPED_RE
   if (input.aqueous.concentration === "saturated" && solute.saturationWtPct) sources.add(solute.saturationWtPct.source);
   if (T !== 20) sources.add("kell-1975-from-memory");
 
-  // Organic phase: ideal volume-additive mixing, plus dissolved material at an assumed density.
-  const solventVolume = organicParts.reduce((sum, p) => sum + p.volumeMl, 0);
-  const solventMass = organicParts.reduce((sum, p) => sum + p.volumeMl * p.densityGPerMl, 0);
   const solidsG = input.dissolvedSolidsG ?? 0;
   const solidsDensity = input.dissolvedSolidsDensityGPerMl ?? DEFAULT_DISSOLVED_DENSITY_G_PER_ML;
-  const solidsVolume = solidsG / solidsDensity;
-  const organicVolumeMl = solventVolume + solidsVolume;
-  const organicDensity = (solventMass + solidsG) / organicVolumeMl;
+  const solventVolume = organicParts.reduce((sum, p) => sum + p.volumeMl, 0);
+  const mix = mixOrganic(organicParts, solidsG, solidsDensity);
+  const organicVolumeMl = mix.volumeMl;
+  const organicDensity = mix.densityGPerMl;
   sources.add("ideal-mixing");
   if (organicParts.length > 1) {
     assumptions.push("The organic solvents mix ideally: volumes add and the density is the volume-weighted mean (real mixtures deviate by about 1–2 %).");
@@ -293,6 +305,13 @@ export function predictLayers(input: LayerInput, ref: ReferenceData = SHIPPED_RE
     }
     const waterT = waterDensityGPerMl(T);
     const organicSinksInWater = organicDensity > waterT;
+    const solventsAloneSink = mixOrganic(organicParts).densityGPerMl > waterT;
+    if (solidsG > 0 && solventsAloneSink !== organicSinksInWater) {
+      warn(
+        "load-changes-order",
+        `The ${r1(solidsG)} g of dissolved material ${organicSinksInWater ? "makes the organic layer denser than water" : "makes the organic layer lighter than water"}: the solvent alone would ${solventsAloneSink ? "sink" : "float"}. Its density is assumed, so confirm with the drop test.`,
+      );
+    }
     if (organicSinksInWater !== (bottom === "organic")) {
       warn(
         "inverted-order",

@@ -30,10 +30,30 @@ interface Index<T extends Named> {
   fuse: Fuse<{ item: T; names: string[]; normal: string[] }>;
 }
 
-/** Fuse score (0 = perfect) at or under which a single fuzzy hit is taken as the answer. */
-export const CONFIDENT_FUZZY_SCORE = 0.15;
-/** A confident hit must also beat the runner-up by this much, so "chloro" is not a guess. */
-export const FUZZY_MARGIN = 0.1;
+/**
+ * Typing errors accepted for a confident match, by length of the normalised query: short
+ * abbreviations must match exactly ("EA", "DCM"), longer names may carry one or two slips.
+ */
+export function allowedTypos(normalisedLength: number): number {
+  if (normalisedLength <= 4) return 0;
+  if (normalisedLength <= 7) return 1;
+  return 2;
+}
+
+/** Optimal-string-alignment edit distance (insert, delete, substitute, swap neighbours). */
+export function editDistance(a: string, b: string): number {
+  const d: number[][] = Array.from({ length: a.length + 1 }, (_, i) => [i, ...new Array<number>(b.length).fill(0)]);
+  for (let j = 1; j <= b.length; j++) d[0]![j] = j;
+  for (let i = 1; i <= a.length; i++) {
+    for (let j = 1; j <= b.length; j++) {
+      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
+      let v = Math.min(d[i - 1]![j]! + 1, d[i]![j - 1]! + 1, d[i - 1]![j - 1]! + cost);
+      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) v = Math.min(v, d[i - 2]![j - 2]! + 1);
+      d[i]![j] = v;
+    }
+  }
+  return d[a.length]![b.length]!;
+}
 
 function buildIndex<T extends Named>(items: T[]): Index<T> {
   const exact = new Map<string, T>();
@@ -90,12 +110,18 @@ function find<T extends Named>(idx: Index<T>, query: string): T | undefined {
   if (hit) return hit;
   const byFormula = idx.formula.get(q);
   if (byFormula && byFormula.length === 1) return byFormula[0];
-  const results = idx.fuse.search(String(query).trim(), { limit: 2 });
-  const best = results[0];
-  if (!best || best.score === undefined || best.score > CONFIDENT_FUZZY_SCORE) return undefined;
-  const runnerUp = results[1];
-  if (runnerUp && runnerUp.item.item !== best.item.item && (runnerUp.score ?? 1) - best.score < FUZZY_MARGIN) return undefined;
-  return best.item.item;
+  // Fuzzy: fuse.js proposes candidates; one is taken only if it is within the typo allowance
+  // and strictly closer than every other entry (DCM vs DCE must never be a coin toss).
+  const allowed = allowedTypos(q.length);
+  if (allowed === 0) return undefined;
+  const scored = idx.fuse
+    .search(String(query).trim(), { limit: 8 })
+    .map((r) => ({ item: r.item.item, distance: Math.min(...r.item.normal.map((n) => editDistance(q, n))) }))
+    .sort((a, b) => a.distance - b.distance);
+  const best = scored[0];
+  if (!best || best.distance > allowed) return undefined;
+  if (scored.some((c) => c.item !== best.item && c.distance === best.distance)) return undefined;
+  return best.item;
 }
 
 function suggest<T extends Named>(idx: Index<T>, query: string, limit: number): T[] {
@@ -193,8 +219,9 @@ export function solventDensityGPerMl(solvent: Solvent, temperatureC: number, fie
 
 /**
  * Density of an aqueous solution at a temperature: the 20 °C table value scaled by
- * ρ_water(T)/ρ_water(20 °C). An approximation: salt solutions expand somewhat more than water,
- * so away from 20 °C strong solutions are off by up to a few thousandths of a g/mL.
+ * ρ_water(T)/ρ_water(20 °C). An approximation: salt solutions expand faster than water, so
+ * away from 20 °C strong solutions are off by up to about 0.00035 g/mL per K (saturated brine
+ * 10 K from 20 °C: ≈ 0.004 g/mL).
  */
 export function aqueousDensityGPerMl(
   solute: AqueousSolute,
