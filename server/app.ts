@@ -11,6 +11,7 @@ import { apiNotFound, errorHandler } from "./middleware/errors";
 import { loadSession } from "./middleware/session";
 import { groupsRouter } from "./routes/groups";
 import { healthRouter } from "./routes/health";
+import { createLocalStorage, type Storage } from "./storage";
 
 export interface CreateAppOptions {
   db: Database;
@@ -24,6 +25,8 @@ export interface CreateAppOptions {
   webDir?: string;
   rateLimit?: { enabled: boolean; window?: number; max?: number };
   quiet?: boolean;
+  /** Defaults to a local folder <dataDir>/photos. */
+  storage?: Storage;
 }
 
 /** Each area adds its router here (one line). Routers mount under /api. */
@@ -40,13 +43,15 @@ export function createApp(options: CreateAppOptions) {
     rateLimit: options.rateLimit,
     quiet: options.quiet,
   });
+  const dataDir = options.dataDir ?? "./data";
   const deps: AppDeps = {
     db: options.db,
     dbKind: options.dbKind,
     auth,
     mail: options.mail,
     baseURL,
-    dataDir: options.dataDir ?? "./data",
+    dataDir,
+    storage: options.storage ?? createLocalStorage(path.join(dataDir, "photos")),
   };
 
   const app = express();

@@ -4,6 +4,7 @@ import { isEmpty, seedDemo } from "../db/seed";
 import { createApp } from "./app";
 import { readEnv } from "./env";
 import { createSmtpMailer, type Mailer } from "./mail";
+import { createS3StorageFromSettings } from "./storage";
 
 async function main() {
   const started = performance.now();
@@ -13,6 +14,16 @@ async function main() {
     ? createSmtpMailer(env.SMTP_URL, env.MAIL_FROM)
     : { send: async (m) => console.log(`[mail] to ${m.to}: ${m.subject}\n${m.text}`) };
   const baseURL = env.PUBLIC_URL ?? `http://localhost:${env.PORT}`;
+  // Photos go to an S3-compatible bucket when one is named; otherwise createApp uses <dataDir>/photos.
+  const storage = env.PHASEWISE_S3_BUCKET
+    ? createS3StorageFromSettings({
+        bucket: env.PHASEWISE_S3_BUCKET,
+        endpoint: env.PHASEWISE_S3_ENDPOINT,
+        region: env.PHASEWISE_S3_REGION,
+        accessKey: env.PHASEWISE_S3_ACCESS_KEY,
+        secretKey: env.PHASEWISE_S3_SECRET_KEY,
+      })
+    : undefined;
   const { app, auth } = createApp({
     db: handle.db,
     dbKind: handle.kind,
@@ -22,6 +33,7 @@ async function main() {
     trustedOrigins: [`http://127.0.0.1:${env.PORT}`, `http://localhost:${env.PORT}`],
     dataDir: env.PHASEWISE_DATA_DIR,
     webDir: path.join(__dirname, "..", "dist"),
+    storage,
   });
   if (env.PHASEWISE_DEMO !== "0" && (await isEmpty(handle.db))) {
     await seedDemo(handle.db, auth);
