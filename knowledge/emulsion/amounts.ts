@@ -19,8 +19,6 @@ export const ALCOHOL_FRACTION = { min: 0.01, max: 0.03 } as const;
 export const TUBE_FILL_ML = 40;
 /** Starting portion of drying agent, g per mL of organic (about 1 g per 25 mL, then add until free-flowing). */
 export const DRYING_AGENT_G_PER_ML = 1 / 25;
-/** Acid or base for pH changes, mol/L. */
-export const PH_REAGENT_MOL_L = 2;
 
 export interface PhPlan {
   targetPh: number;
@@ -80,9 +78,9 @@ export function remedyAmounts(facts: SystemFacts, funnelMl: number | undefined, 
     dryingAgentG: benchAmount(Math.max(1, organicMl * DRYING_AGENT_G_PER_ML)),
     chelatorMl: benchAmount(organicMl),
     washMl: benchAmount(organicMl * WASH_FRACTION),
-    neutraliseMmol: effect ? effect.mmol : null,
+    neutraliseMmol: effect ? effect.result.reagentMmol : null,
     phTarget: ph?.targetPh ?? null,
     phReagent: ph?.reagent ?? null,
-    phReagentMl: effect && effect.mmol > 0 ? effect.mmol / PH_REAGENT_MOL_L : null,
+    phReagentMl: effect && effect.result.reagentVolumeMl > 0 ? effect.result.reagentVolumeMl : null,
   };
 }

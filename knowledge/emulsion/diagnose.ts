@@ -1,7 +1,7 @@
 import type { LayerPrediction } from "../layers";
 import type { ReferenceData } from "../types";
 import { KnowledgeInputError } from "../types";
-import { PH_REAGENT_MOL_L, remedyAmounts, type PhPlan, extraOrganicSolvent } from "./amounts";
+import { extraOrganicSolvent, remedyAmounts, type PhPlan } from "./amounts";
 import { CAUSES } from "./causes";
 import { PRIOR_STRENGTH, ownGroupRecords, phBand, remedyEvidence, type EvidenceRecord, type RemedyEvidence } from "./evidence";
 import { systemFacts, type SystemFacts } from "./facts";
@@ -9,6 +9,7 @@ import type { CauseCode, Component, Remedy, RemedyAmounts, RemedyId, Troubleshoo
 import { preventionFor } from "./prevention";
 import { REMEDIES } from "./remedies";
 import {
+  PH_REAGENT_MOL_L,
   brineAfter,
   componentsAtPh,
   neutralisationEffect,
@@ -319,7 +320,7 @@ function saltAdjust(ctx: RemedyContext, d: Draft, after: PhaseAfter, label: stri
     d.factor *= 0.15;
     d.blocked = true;
     d.reasons.push(
-      `the organic (${r3(l.organicDensityGPerMl)} g/mL) is denser than water but not denser than saturated brine (${r3(saturatedBrineDensityGPerMl(ctx.facts))} g/mL): ${label} would stall or swap the layers`,
+      `the organic (${r3(l.organicDensityGPerMl)} g/mL) sinks in water but is not clearly denser than saturated brine (${r3(saturatedBrineDensityGPerMl(ctx.facts))} g/mL): ${label} would stall or swap the layers`,
     );
   } else if (ctx.facts.organicIsBottom) {
     d.factor *= 0.75;
@@ -610,7 +611,11 @@ function rankRemedy(ctx: RemedyContext, remedy: Remedy, causes: CauseResult[]): 
   const raw = fit * EVIDENCE_LEVEL_FACTOR[remedy.evidence] * d.factor - TIER_STEP * (remedy.tier - 1);
   const priorScore = r3(Math.min(1, Math.max(0, raw)));
   const reasons = [...contributionReasons(remedy, causes, weights), ...d.reasons];
-  if (reasons.length === 0 && general > 0) reasons.push("a general first move when no cause stands out");
+  if (reasons.length === 0) {
+    const best = causes.filter((c) => (weights[c.code] ?? 0) > 0).sort((a, b) => b.score * (weights[b.code] ?? 0) - a.score * (weights[a.code] ?? 0))[0];
+    if (best && best.score * (weights[best.code] ?? 0) >= general) reasons.push(`a weaker fit for ${best.title.toLowerCase()}`);
+    else if (general > 0) reasons.push("a general first move when no cause stands out");
+  }
   return {
     id: remedy.id,
     title: remedy.title,

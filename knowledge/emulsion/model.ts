@@ -79,7 +79,7 @@ export interface RemedyAmounts {
   dryingAgentG: number;
   chelatorMl: number;
   washMl: number;
-  /** strong base or acid in the aqueous phase, mmol, when the concentration says so */
+  /** acid or base needed to reach the target pH, mmol, when the wash's chemistry is known */
   neutraliseMmol: number | null;
   /** pH to aim for when adjusting, and with what; null when no adjustment is indicated */
   phTarget: number | null;

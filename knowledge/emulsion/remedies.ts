@@ -327,7 +327,7 @@ export const REMEDIES: Remedy[] = [
       "Check where each component goes at the new pH first (component line below).",
       "Drain everything into an open beaker or flask, stir and cool in an ice bath.",
       a.phTarget !== null && a.phReagent
-        ? `Add ${a.phReagent} dropwise to pH ${a.phTarget} by paper${a.phReagentMl !== null ? ` (about ${n(a.phReagentMl)} mL neutralises what is there, then a little more)` : ""}.`
+        ? `Add ${a.phReagent} dropwise to pH ${a.phTarget} by paper${a.phReagentMl !== null ? ` (about ${n(a.phReagentMl)} mL by calculation)` : ""}.`
         : "Add dilute acid or base dropwise to the chosen pH, checking with paper.",
       "When gas and warmth have stopped, return to the funnel, swirl gently and let stand.",
     ],

@@ -1,6 +1,13 @@
-import { NEAR_BOILING_MARGIN_K, TOO_CLOSE_DENSITY_DIFFERENCE_G_PER_ML, predictLayers, type Phase } from "../layers";
+import {
+  CLEAR_DENSITY_DIFFERENCE_G_PER_ML,
+  NEAR_BOILING_MARGIN_K,
+  TOO_CLOSE_DENSITY_DIFFERENCE_G_PER_ML,
+  predictLayers,
+  type Phase,
+} from "../layers";
 import { distributionRatio, fractionLeftInOrganic, partitionCoefficientOf } from "../plan/distribution";
 import { MAX_FILL_FRACTION } from "../plan/funnel";
+import { neutraliseExtract, type NeutraliseResult } from "../plan/neutralise";
 import { aqueousDensityGPerMl, requireSolute, waterDensityGPerMl } from "../reference";
 import type { AntoineConstants, Solvent } from "../types";
 import { KnowledgeInputError } from "../types";
@@ -174,20 +181,21 @@ export function solidSaltAfter(facts: SystemFacts, saltG: number, funnelMl?: num
 }
 
 /**
- * True when salting the aqueous phase all the way would put a sinking organic on top or make
- * the pair isodense: the organic is below the aqueous now but lighter than saturated brine
- * plus the layer check's "too close" margin.
+ * True when salting the aqueous phase all the way would put a sinking organic on top or leave
+ * the order unclear: the organic is below the aqueous now but not denser than saturated brine
+ * by the layer check's "clear" margin (0.07 g/mL). Chlorobenzene (1.106) and 1,2-dichloroethane
+ * (1.25) are caught; dichloromethane (1.33) is not.
  */
 export function saltingCanInvert(facts: SystemFacts): boolean {
   if (facts.organicIsBottom !== true) return false;
-  return facts.layers.organicDensityGPerMl < saturatedBrineDensityGPerMl(facts) + TOO_CLOSE_DENSITY_DIFFERENCE_G_PER_ML;
+  return facts.layers.organicDensityGPerMl < saturatedBrineDensityGPerMl(facts) + CLEAR_DENSITY_DIFFERENCE_G_PER_ML;
 }
 
 function saturationNote(facts: SystemFacts): string {
   if (!saltingCanInvert(facts)) return "";
   const sat = saturatedBrineDensityGPerMl(facts);
   return ` Saturated brine is ${r3(sat)} g/mL and the organic ${r3(facts.layers.organicDensityGPerMl)} g/mL: more salt would ${
-    facts.layers.organicDensityGPerMl < sat ? "float the organic on top" : "leave the layers nearly isodense"
+    facts.layers.organicDensityGPerMl < sat ? "float the organic on top" : "leave the layers too close to settle well"
   }.`;
 }
 
@@ -274,56 +282,51 @@ export function componentsAtPh(facts: SystemFacts, components: Component[], from
   return { moves, unchecked };
 }
 
-/** −ΔH of H⁺ + OH⁻ → H2O at 25 °C, J/mol (source "codata-1989-from-memory"). */
-export const NEUTRALISATION_J_PER_MOL = 55_800;
-/** Specific heat of dilute aqueous solution, J/(g·K) (source "water-heat-capacity-from-memory"). */
-export const WATER_HEAT_CAPACITY_J_PER_G_K = 4.18;
-/** Ideal-gas molar volume RT/p at 25 °C and 101.325 kPa, mL/mmol (source "si-2019-gas-constant"). */
-export const GAS_ML_PER_MMOL_25C = 24.47;
+/** Acid or base for pH changes, mol/L. */
+export const PH_REAGENT_MOL_L = 2;
 
 export interface NeutralisationEffect {
-  /** acid or base in the wash that has to be neutralised first, mmol */
-  mmol: number;
-  heatJ: number;
-  /** temperature rise if the aqueous layer alone took the heat (an upper estimate) */
-  temperatureRiseK: number;
-  /** CO2 released when a carbonate or bicarbonate wash is acidified, mL at 25 °C */
-  co2Ml: number;
+  result: NeutraliseResult;
+  /** the reagent's name, e.g. "2 M HCl" */
+  reagent: string;
   cautions: string[];
 }
 
 /**
- * Acid or base needed, heat and gas from taking the aqueous phase to the target pH. Strong base
- * or acid in the wash is neutralised mole for mole with about 56 kJ/mol; carbonate and bicarbonate give one CO2 per formula unit once
- * acidified below about pH 6 (their second pKa is 6.35).
+ * Acid or base needed, heat and CO2 from taking the aqueous phase to the target pH, by the
+ * plan's charge balance (neutraliseExtract) with 2 M HCl or 2 M NaOH. Null when the aqueous
+ * solute has no acid–base data or the pH is unknown.
  */
 export function neutralisationEffect(facts: SystemFacts, targetPh: number): NeutralisationEffect | null {
-  const wash = facts.wash;
-  if (!wash || facts.ph === null) return null;
-  const V = facts.system.aqueous.volumeMl;
-  const acidifying = targetPh < facts.ph;
-  const strong = acidifying ? wash.role === "strong-base" : wash.role === "strong-acid";
-  const mmol = (acidifying ? wash.baseCapacityMmolPerMl : wash.acidCapacityMmolPerMl) * V;
-  // weak acids and bases (bicarbonate, ammonium) neutralise with little heat
-  const heatJ = strong ? (mmol / 1000) * NEUTRALISATION_J_PER_MOL : 0;
-  const temperatureRiseK = heatJ / (facts.aqueousMassG * WATER_HEAT_CAPACITY_J_PER_G_K);
-  const co2Ml = wash.carbonate && acidifying && targetPh < 6 ? wash.molarityMolL * V * GAS_ML_PER_MMOL_25C : 0;
-  const cautions: string[] = [];
-  if (heatJ > 0) {
-    const peak = facts.system.temperatureC + temperatureRiseK;
-    const boiling = facts.solvents.filter((s) => peak >= s.solvent.boilingPointC.value - NEAR_BOILING_MARGIN_K);
+  if (!facts.wash || facts.ph === null) return null;
+  const acidify = targetPh < facts.ph;
+  const { aqueous, temperatureC } = facts.system;
+  let result: NeutraliseResult;
+  try {
+    result = neutraliseExtract(
+      {
+        extract: { solute: facts.solute.key, ...(aqueous.concentration !== undefined ? { concentration: aqueous.concentration } : {}), volumeMl: aqueous.volumeMl },
+        // the emulsifier's amount is unknown: a zero-amount entry sets the direction and adds nothing
+        components: [{ name: "emulsifier", kind: acidify ? "acid" : "base", pKa: acidify ? targetPh + 2 : targetPh - 2, mmol: 0 }],
+        reagent: { solute: acidify ? "hydrochloric-acid" : "sodium-hydroxide", concentration: { value: PH_REAGENT_MOL_L, unit: "mol/L" } },
+        targetPh,
+        temperatureC,
+      },
+      facts.ref,
+    );
+  } catch (e) {
+    if (e instanceof KnowledgeInputError) return null;
+    throw e;
+  }
+  const cautions = result.warnings.map((w) => w.message);
+  const peak = temperatureC + result.temperatureRiseK;
+  const boiling = facts.solvents.filter((s) => peak >= s.solvent.boilingPointC.value - NEAR_BOILING_MARGIN_K);
+  if (result.temperatureRiseK >= 1 && boiling.length) {
     cautions.push(
-      `Neutralising about ${Math.round(mmol)} mmol of ${wash.name} releases about ${r1(heatJ / 1000)} kJ: up to +${Math.round(temperatureRiseK)} °C in the aqueous layer${
-        boiling.length ? `, near the boiling point of ${boiling.map((s) => `${s.solvent.name} (${s.solvent.boilingPointC.value} °C)`).join(", ")}` : ""
-      }. Add the acid or base slowly with ice cooling in an open vessel; follow the SDS and local rules.`,
+      `Up to ${Math.round(peak)} °C is near the boiling point of ${boiling.map((s) => `${s.solvent.name} (${s.solvent.boilingPointC.value} °C)`).join(", ")}: neutralise the aqueous layer alone, cold, before it meets the solvent again.`,
     );
   }
-  if (co2Ml > 0) {
-    cautions.push(
-      `Acidifying this ${wash.name} releases about ${Math.round(co2Ml)} mL of CO2: do it in an open, stirred flask until gas stops, never in the stoppered funnel; follow local rules.`,
-    );
-  }
-  return { mmol, heatJ, temperatureRiseK, co2Ml, cautions };
+  return { result, reagent: `${PH_REAGENT_MOL_L} M ${acidify ? "HCl" : "NaOH"}`, cautions };
 }
 
 // ── warming ──────────────────────────────────────────────────────────────────
