@@ -12,6 +12,8 @@ import { loadSession } from "./middleware/session";
 import { groupsRouter } from "./routes/groups";
 import { healthRouter } from "./routes/health";
 import { createLocalStorage, type Storage } from "./storage";
+import { layersRouter } from "./routes/layers";
+import { solventsRouter } from "./routes/solvents";
 
 export interface CreateAppOptions {
   db: Database;
@@ -30,7 +32,7 @@ export interface CreateAppOptions {
 }
 
 /** Each area adds its router here (one line). Routers mount under /api. */
-const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter];
+const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter];
 
 export function createApp(options: CreateAppOptions) {
   const baseURL = options.baseURL ?? "http://localhost:3000";
