@@ -139,3 +139,21 @@ export function ionisedDemandMmol(
   }
   return { acidsMmol, basesMmol };
 }
+
+/** D and the one-pass fraction left in the organic layer across a pH range, for the distribution chart. */
+export function distributionCurve(
+  component: { kind: ComponentKind; pKa?: number; partitionCoefficient: number },
+  organicVolumeMl: number,
+  aqueousVolumeMl: number,
+  fromPh = 0,
+  toPh = 14,
+  stepPh = 0.25,
+): { pH: number; distributionRatio: number; fractionInOrganic: number }[] {
+  if (!(stepPh > 0) || !(toPh >= fromPh)) throw new KnowledgeInputError("stepPh", "The pH range must run upwards in positive steps.");
+  const n = Math.round((toPh - fromPh) / stepPh);
+  return Array.from({ length: n + 1 }, (_, i) => {
+    const pH = fromPh + i * stepPh;
+    const d = distributionRatio(component.partitionCoefficient, component.kind, component.pKa, pH);
+    return { pH, distributionRatio: d, fractionInOrganic: fractionLeftInOrganic(d, organicVolumeMl, aqueousVolumeMl) };
+  });
+}

@@ -33,6 +33,7 @@ export {
 } from "./wash-chemistry";
 export {
   LOGP_ESTIMATE_NOTE,
+  distributionCurve,
   distributionRatio,
   equilibratePass,
   fractionLeftInOrganic,

@@ -1,7 +1,7 @@
 import { predictLayers, type LayerConfidence, type Phase } from "../layers";
 import { requireSolvent, SHIPPED_REFERENCE } from "../reference";
 import { KnowledgeInputError, type Concentration, type KnowledgeWarning, type ReferenceData } from "../types";
-import { effectiveTotalMolL, speciesFractions } from "./acid-base";
+import { effectiveTotalMolL, mixturePh, speciesFractions } from "./acid-base";
 import { equilibratePass, ionisedDemandMmol, LOGP_ESTIMATE_NOTE, partitionCoefficientOf, type ComponentKind, type EquilibriumComponent } from "./distribution";
 import { chooseFunnel, type FunnelChoice } from "./funnel";
 import { gasMlPerMmol, VENTING_CAUTION } from "./neutralise";
@@ -194,7 +194,7 @@ export function computePlan(input: PlanInput, ref: ReferenceData = SHIPPED_REFER
     const mixture = washMixture(chem, molarity.molL, T);
     const Vaq = w.volumeMl;
     const label = `Wash ${wi + 1} (${chem.name})`;
-    const freshPh = equilibratePass(Vorg, Vaq, mixture, []).pH;
+    const freshPh = mixturePh(mixture);
     const repeats = w.repeats ?? 1;
     let washCo2Mmol = 0;
     let maxPassCo2Ml = 0;

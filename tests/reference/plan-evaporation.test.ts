@@ -11,7 +11,7 @@ const solvent = (q: string) => findSolvent(q)!;
 
 describe("Antoine equation against published boiling points", () => {
   it.each([
-    // saturation temperature of water: IAPWS-IF97 steam tables (99.97 °C at 101.325 kPa, 45.81 °C at 10 kPa, 81.32 °C at 50 kPa)
+    // saturation temperature of water, IAPWS-IF97 steam tables (recalled): 99.97 °C at 101.325 kPa, 45.81 °C at 10 kPa, 81.32 °C at 50 kPa
     ["water", 1013.25, 99.97, 0.2],
     ["water", 100, 45.81, 0.3],
     ["water", 500, 81.32, 0.3],
@@ -25,7 +25,7 @@ describe("Antoine equation against published boiling points", () => {
   });
 
   it.each([
-    // vapour pressure of water, IAPWS-IF97: 2.339 kPa at 20 °C, 7.385 kPa at 40 °C
+    // vapour pressure of water, IAPWS-IF97 steam tables (recalled): 2.339 kPa at 20 °C, 7.385 kPa at 40 °C
     ["water", 20, 23.39, 0.02],
     ["water", 40, 73.85, 0.02],
     // CRC Handbook vapour pressures (from memory): toluene 3.79 kPa at 25 °C, ethanol 5.95 kPa at 20 °C

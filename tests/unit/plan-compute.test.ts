@@ -81,6 +81,12 @@ describe("three-wash plan (1 M HCl × 2, sat. NaHCO3, brine) tracking an amine, 
     expect(co2?.message).toMatch(/Acid wash 1/);
   });
 
+  it("brine is neutral (pH 7.0) and takes almost none of the acid left", () => {
+    const step = plan.steps[3]!;
+    expect(step.washPh).toBeCloseTo(7.0, 2);
+    expect(step.components.find((c) => c.name === "carboxylic acid")!.fractionInAqueousThisPass).toBeLessThan(0.002);
+  });
+
   it("lists the washes that removed each component", () => {
     expect(plan.final.components.map((c) => [c.name, c.removedBy])).toEqual([
       ["amine", [0]],

@@ -1,4 +1,5 @@
 import {
+  distributionCurve,
   distributionRatio,
   equilibratePass,
   fractionLeftInOrganic,
@@ -48,6 +49,15 @@ describe("distribution ratio and one pass", () => {
     // D = 5, 50 mL organic against 20 mL water: 250 / 270
     expect(fractionLeftInOrganic(5, 50, 20)).toBeCloseTo(250 / 270, 12);
     expect(fractionLeftInOrganic(0, 50, 20)).toBe(0);
+  });
+
+  it("draws D against pH: half the acid's K at its pKa, rising to K below it", () => {
+    const curve = distributionCurve({ kind: "acid", pKa: 4.2, partitionCoefficient: 100 }, 50, 20, 0, 14, 0.1);
+    expect(curve).toHaveLength(141);
+    const at = (pH: number) => curve.find((p) => Math.abs(p.pH - pH) < 1e-9)!;
+    expect(at(4.2).distributionRatio).toBeCloseTo(50, 6);
+    expect(at(0).distributionRatio).toBeCloseTo(100 / (1 + 10 ** -4.2), 6);
+    expect(at(8.2).fractionInOrganic).toBeCloseTo(fractionLeftInOrganic(100 / (1 + 10 ** 4), 50, 20), 10);
   });
 
   it("prefers a given K over log P and needs one of them", () => {
