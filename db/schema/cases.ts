@@ -1,6 +1,7 @@
 import { sql } from "drizzle-orm";
 import {
   boolean,
+  customType,
   doublePrecision,
   index,
   integer,
@@ -19,6 +20,11 @@ import type {
   CaseSystem,
 } from "../../knowledge/contracts/cases";
 import { organization, user } from "./auth";
+
+/** PostgreSQL's tsvector (drizzle has no built-in type for it). */
+const tsvector = customType<{ data: string }>({
+  dataType: () => "tsvector",
+});
 
 const stamp = (name: string) => timestamp(name, { withTimezone: true, mode: "date" });
 
@@ -54,6 +60,10 @@ export const cases = pgTable(
     recovery: jsonb("recovery").$type<{ massG?: number; percent?: number }>(),
     /** everything the search box looks at, in one lower-case string (title, notes, solvent synonyms, remedies, tags) */
     searchText: text("search_text").notNull().default(""),
+    /** full-text vector of the search text, title words weighted highest ('simple': no stemming, any language) */
+    searchVector: tsvector("search_vector").generatedAlwaysAs(
+      sql`setweight(to_tsvector('simple', "title"), 'A') || setweight(to_tsvector('simple', "search_text"), 'D')`,
+    ),
     occurredAt: stamp("occurred_at").notNull().defaultNow(),
     createdAt: stamp("created_at").notNull().defaultNow(),
     updatedAt: stamp("updated_at").notNull().defaultNow(),
@@ -77,6 +87,7 @@ export const cases = pgTable(
     index("cases_solvent_keys_idx").using("gin", t.solventKeys),
     index("cases_tags_idx").using("gin", t.tags),
     index("cases_causes_idx").using("gin", t.causes),
+    index("cases_search_idx").using("gin", t.searchVector),
   ],
 );
 

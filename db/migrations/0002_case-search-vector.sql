@@ -1,0 +1,2 @@
+ALTER TABLE "cases" ADD COLUMN "search_vector" "tsvector" GENERATED ALWAYS AS (setweight(to_tsvector('simple', "title"), 'A') || setweight(to_tsvector('simple', "search_text"), 'D')) STORED;--> statement-breakpoint
+CREATE INDEX "cases_search_idx" ON "cases" USING gin ("search_vector");
