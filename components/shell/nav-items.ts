@@ -12,4 +12,5 @@ export interface NavItem {
 export const NAV_ITEMS: NavItem[] = [
   { href: "/", label: "Home", icon: "home", match: "/" },
   { href: "/group", label: "Group", icon: "group", match: "/group" },
+  { href: "/cases", label: "Cases", icon: "cases", match: "/cases" },
 ];

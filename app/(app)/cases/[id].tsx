@@ -1,0 +1,3 @@
+import { CaseScreen } from "../../../components/cases/case-screen";
+
+export default CaseScreen;

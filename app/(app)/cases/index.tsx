@@ -1,0 +1,3 @@
+import { CasesScreen } from "../../../components/cases/cases-screen";
+
+export default CasesScreen;

@@ -1,0 +1,3 @@
+import { NewCaseScreen } from "../../../components/cases/new-case-screen";
+
+export default NewCaseScreen;

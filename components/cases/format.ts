@@ -1,0 +1,45 @@
+import type { CaseSystem } from "../../knowledge/contracts/cases";
+import { formatConcentration } from "./case-draft";
+
+/** Volumes in mL, in L from 1000 mL up (UX numbers and units). */
+export function formatVolume(ml: number): string {
+  if (ml >= 1000) return `${Number((ml / 1000).toFixed(2))} L`;
+  return `${Number(ml.toFixed(1))} mL`;
+}
+
+const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
+
+/** "14 Mar 2025": unambiguous whatever the device locale. */
+export function formatDate(iso: string): string {
+  const d = new Date(iso);
+  if (Number.isNaN(d.getTime())) return iso;
+  return `${d.getDate()} ${MONTHS[d.getMonth()]} ${d.getFullYear()}`;
+}
+
+export function formatDateTime(iso: string): string {
+  const d = new Date(iso);
+  if (Number.isNaN(d.getTime())) return iso;
+  const hh = String(d.getHours()).padStart(2, "0");
+  const mm = String(d.getMinutes()).padStart(2, "0");
+  return `${formatDate(iso)}, ${hh}:${mm}`;
+}
+
+export function formatMinutes(min: number): string {
+  if (min < 60) return `${Number(min.toFixed(1))} min`;
+  const h = Math.floor(min / 60);
+  const m = Math.round(min % 60);
+  return m ? `${h} h ${m} min` : `${h} h`;
+}
+
+/** "50 mL dichloromethane + 10 mL methanol" */
+export function organicLine(system: CaseSystem): string {
+  return system.organic.map((o) => `${formatVolume(o.volumeMl)} ${o.name || o.solvent}`).join(" + ");
+}
+
+/** "50 mL saturated sodium bicarbonate, pH 8.3" */
+export function aqueousLine(system: CaseSystem): string {
+  const a = system.aqueous;
+  const conc = formatConcentration(a.concentration);
+  const ph = a.ph !== undefined ? `, pH ${a.ph.toFixed(1)}` : "";
+  return `${formatVolume(a.volumeMl)} ${conc ? `${conc} ` : ""}${a.name || a.solute}${ph}`;
+}

@@ -1,0 +1,121 @@
+import { z } from "zod";
+
+/*
+ * The "Start a case" hand-off: the Layers and Emulsion screens put the system they are showing
+ * into `/cases/new?system=<json>` and the new-case form starts from it. The decoder is forgiving
+ * (a link typed by hand or cut short must still open the form): parts that do not parse are
+ * dropped one by one instead of rejecting the whole link.
+ */
+
+const concentration = z.union([
+  z.literal("saturated"),
+  z.object({ value: z.number().finite().nonnegative(), unit: z.enum(["mol/L", "%w/w", "g/L"]) }),
+]);
+
+const organicPart = z.object({ solvent: z.string().trim().min(1).max(120), volumeMl: z.number().finite().positive().max(100_000) });
+const aqueous = z.object({
+  solute: z.string().trim().min(1).max(120),
+  concentration: concentration.optional(),
+  volumeMl: z.number().finite().positive().max(100_000),
+});
+
+/** What the emulsion screen has seen; the same names as knowledge/emulsion's `Seen`. */
+const seen = z.object({
+  emulsionFractionPct: z.number().finite().min(0).max(100).optional(),
+  solids: z.boolean().optional(),
+  colour: z.string().trim().max(80).optional(),
+  thirdLayer: z.boolean().optional(),
+  cloudyOrganic: z.boolean().optional(),
+  foamOrBubbles: z.boolean().optional(),
+});
+
+export type PrefillConcentration = z.infer<typeof concentration>;
+export type PrefillOrganic = z.infer<typeof organicPart>;
+export type PrefillAqueous = z.infer<typeof aqueous>;
+export type PrefillSeen = z.infer<typeof seen>;
+
+export interface CasePrefill {
+  organic?: PrefillOrganic[];
+  aqueous?: PrefillAqueous;
+  temperatureC?: number;
+  seen?: PrefillSeen;
+  /** reaction or work-up context tags, e.g. "metal-salts", "phase-transfer-catalyst" */
+  tags?: string[];
+  /** free text to start the title with */
+  title?: string;
+}
+
+export const PREFILL_PARAM = "system";
+const MAX_ORGANIC_PARTS = 6;
+const MAX_TAGS = 12;
+
+/** JSON for the `system` query parameter (not yet URL-encoded). Empty parts are left out. */
+export function encodeCasePrefill(prefill: CasePrefill): string {
+  const out: CasePrefill = {};
+  if (prefill.organic?.length) out.organic = prefill.organic.map((p) => ({ solvent: p.solvent, volumeMl: p.volumeMl }));
+  if (prefill.aqueous) out.aqueous = prefill.aqueous;
+  if (prefill.temperatureC !== undefined) out.temperatureC = prefill.temperatureC;
+  if (prefill.seen && Object.values(prefill.seen).some((v) => v !== undefined)) out.seen = prefill.seen;
+  if (prefill.tags?.length) out.tags = prefill.tags;
+  if (prefill.title) out.title = prefill.title;
+  return JSON.stringify(out);
+}
+
+/** The route to open the new-case form prefilled: `/cases/new?system=…`. */
+export function caseStartHref(prefill: CasePrefill): string {
+  return `/cases/new?${PREFILL_PARAM}=${encodeURIComponent(encodeCasePrefill(prefill))}`;
+}
+
+function pick<T>(schema: z.ZodType<T>, value: unknown): T | undefined {
+  const r = schema.safeParse(value);
+  return r.success ? r.data : undefined;
+}
+
+/**
+ * Read a `system` parameter back. Accepts the raw JSON or a still-encoded string (and the
+ * array Expo Router gives for a repeated parameter: the first wins). Returns null when nothing
+ * usable is in it.
+ */
+export function decodeCasePrefill(raw: string | string[] | undefined | null): CasePrefill | null {
+  const text = Array.isArray(raw) ? raw[0] : raw;
+  if (!text) return null;
+  let data: unknown;
+  try {
+    data = JSON.parse(text);
+  } catch {
+    try {
+      data = JSON.parse(decodeURIComponent(text));
+    } catch {
+      return null;
+    }
+  }
+  if (typeof data !== "object" || data === null || Array.isArray(data)) return null;
+  const o = data as Record<string, unknown>;
+  const out: CasePrefill = {};
+  if (Array.isArray(o.organic)) {
+    const parts = o.organic.map((p) => pick(organicPart, p)).filter((p): p is PrefillOrganic => !!p);
+    if (parts.length) out.organic = parts.slice(0, MAX_ORGANIC_PARTS);
+  }
+  const aq = pick(aqueous, o.aqueous);
+  if (aq) out.aqueous = aq;
+  const t = pick(z.number().finite().min(-80).max(200), o.temperatureC);
+  if (t !== undefined) out.temperatureC = t;
+  if (typeof o.seen === "object" && o.seen !== null) {
+    // Field by field, so one bad observation does not drop the others.
+    const s: PrefillSeen = {};
+    const shape = seen.shape;
+    const src = o.seen as Record<string, unknown>;
+    for (const key of Object.keys(shape) as (keyof PrefillSeen)[]) {
+      const v = pick(shape[key] as z.ZodType<unknown>, src[key]);
+      if (v !== undefined) (s as Record<string, unknown>)[key] = v;
+    }
+    if (Object.keys(s).length) out.seen = s;
+  }
+  if (Array.isArray(o.tags)) {
+    const tags = o.tags.filter((x): x is string => typeof x === "string" && x.trim() !== "").map((x) => x.trim().slice(0, 60));
+    if (tags.length) out.tags = [...new Set(tags)].slice(0, MAX_TAGS);
+  }
+  const title = pick(z.string().trim().min(1).max(160), o.title);
+  if (title) out.title = title;
+  return Object.keys(out).length ? out : null;
+}
