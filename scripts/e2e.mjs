@@ -8,7 +8,9 @@ import { ensureChromium } from "./chromium.mjs";
 
 const chromium = ensureChromium();
 
-const build = spawnSync("npx", ["expo", "export", "-p", "web"], {
+// Each run exports into its own folder, so parallel runs never read a half-written bundle.
+const webDir = mkdtempSync(path.join(os.tmpdir(), "phasewise-web-"));
+const build = spawnSync("npx", ["expo", "export", "-p", "web", "--output-dir", webDir], {
   stdio: ["ignore", "ignore", "inherit"],
   env: { ...process.env, CI: "1", EXPO_OFFLINE: "1" },
 });
@@ -27,7 +29,7 @@ const port = await new Promise((resolve) => {
 const dataDir = mkdtempSync(path.join(os.tmpdir(), "phasewise-e2e-"));
 const baseURL = `http://localhost:${port}`;
 const server = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
-  env: { ...process.env, PORT: String(port), PHASEWISE_DATA_DIR: dataDir, PUBLIC_URL: baseURL, DATABASE_URL: "" },
+  env: { ...process.env, PORT: String(port), PHASEWISE_DATA_DIR: dataDir, PUBLIC_URL: baseURL, DATABASE_URL: "", PHASEWISE_WEB_DIR: webDir },
   stdio: ["ignore", "pipe", "inherit"],
 });
 let log = "";
@@ -60,4 +62,5 @@ const jest = spawnSync("npx", ["jest", "--selectProjects", "e2e", "--runInBand",
 server.kill("SIGTERM");
 await new Promise((r) => server.on("exit", r));
 rmSync(dataDir, { recursive: true, force: true });
+rmSync(webDir, { recursive: true, force: true });
 process.exit(jest.status ?? 1);

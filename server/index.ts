@@ -32,7 +32,7 @@ async function main() {
     secret: env.BETTER_AUTH_SECRET,
     trustedOrigins: [`http://127.0.0.1:${env.PORT}`, `http://localhost:${env.PORT}`],
     dataDir: env.PHASEWISE_DATA_DIR,
-    webDir: path.join(__dirname, "..", "dist"),
+    webDir: env.PHASEWISE_WEB_DIR ?? path.join(__dirname, "..", "dist"),
     storage,
   });
   if (env.PHASEWISE_DEMO !== "0" && (await isEmpty(handle.db))) {
