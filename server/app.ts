@@ -9,6 +9,7 @@ import type { AppDeps } from "./deps";
 import type { Mailer } from "./mail";
 import { apiNotFound, errorHandler } from "./middleware/errors";
 import { loadSession } from "./middleware/session";
+import { auditRouter } from "./routes/audit";
 import { groupsRouter } from "./routes/groups";
 import { healthRouter } from "./routes/health";
 import { createLocalStorage, type Storage } from "./storage";
@@ -32,7 +33,7 @@ export interface CreateAppOptions {
 }
 
 /** Each area adds its router here (one line). Routers mount under /api. */
-const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter];
+const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, auditRouter];
 
 export function createApp(options: CreateAppOptions) {
   const baseURL = options.baseURL ?? "http://localhost:3000";
