@@ -9,6 +9,7 @@ const esmPackages = [
   "peek-readable",
   "uint8array-extras",
   "@tokenizer",
+  "@borewit",
   "jose",
   "nanostores",
   "@noble",

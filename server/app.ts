@@ -10,8 +10,10 @@ import type { Mailer } from "./mail";
 import { apiNotFound, errorHandler } from "./middleware/errors";
 import { loadSession } from "./middleware/session";
 import { auditRouter } from "./routes/audit";
+import { casesRouter } from "./routes/cases";
 import { groupsRouter } from "./routes/groups";
 import { healthRouter } from "./routes/health";
+import { photosRouter } from "./routes/photos";
 import { createLocalStorage, type Storage } from "./storage";
 import { layersRouter } from "./routes/layers";
 import { solventsRouter } from "./routes/solvents";
@@ -33,7 +35,7 @@ export interface CreateAppOptions {
 }
 
 /** Each area adds its router here (one line). Routers mount under /api. */
-const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, auditRouter];
+const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, auditRouter, casesRouter, photosRouter];
 
 export function createApp(options: CreateAppOptions) {
   const baseURL = options.baseURL ?? "http://localhost:3000";
