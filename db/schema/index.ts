@@ -3,3 +3,4 @@ export * from "./auth";
 export * from "./cases";
 export * from "./audit";
 export * from "./reference-overrides";
+export * from "./plans";
