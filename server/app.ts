@@ -9,6 +9,7 @@ import type { AppDeps } from "./deps";
 import type { Mailer } from "./mail";
 import { apiNotFound, errorHandler } from "./middleware/errors";
 import { loadSession } from "./middleware/session";
+import { sameOriginWrites } from "./middleware/origin";
 import { auditRouter } from "./routes/audit";
 import { casesRouter } from "./routes/cases";
 import { groupsRouter } from "./routes/groups";
@@ -83,6 +84,8 @@ export function createApp(options: CreateAppOptions) {
   });
   // better-auth reads its own body: mount it before express.json().
   app.all("/api/auth/*splat", toNodeHandler(auth));
+  // Our own writes refuse other sites too (better-auth checks its routes itself).
+  app.use("/api", sameOriginWrites([baseURL, ...(options.trustedOrigins ?? [])]));
   app.use(express.json({ limit: "1mb" }));
   app.use("/api", loadSession(auth));
   for (const make of AREA_ROUTERS) app.use("/api", make(deps));

@@ -48,6 +48,8 @@ export function createAuth(options: AuthOptions) {
     advanced: {
       database: { generateId: () => crypto.randomUUID() },
       ipAddress: { ipAddressHeaders: ["x-phasewise-client-ip"] },
+      // better-auth turns its origin (CSRF) check off when NODE_ENV=test; keep it on so tests see production.
+      disableOriginCheck: false,
     },
     plugins: [
       organization({
