@@ -3,4 +3,5 @@ export * from "./auth";
 export * from "./cases";
 export * from "./audit";
 export * from "./reference-overrides";
+export * from "./curation";
 export * from "./plans";
