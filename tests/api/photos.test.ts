@@ -7,7 +7,7 @@ import { sql } from "drizzle-orm";
 import sharp from "sharp";
 import { createApp } from "../../server/app";
 import { createRecordingMailer } from "../../server/mail";
-import { createLocalStorage, createS3Storage, newStorageKey, type Storage } from "../../server/storage";
+import { createLocalStorage, createS3Storage, newStorageKey, type S3Send, type Storage } from "../../server/storage";
 import { agentFor, ORIGIN, groupWithRoles, signUp, startTestApp, type TestApp } from "./harness";
 import { createCase } from "./case-helpers";
 
@@ -329,7 +329,8 @@ describe("S3-compatible storage", () => {
         },
       } as never,
     });
-    return { objects, requests, send: (command: Parameters<typeof client.send>[0]) => client.send(command as never) };
+    const send: S3Send = (command) => client.send(command as never);
+    return { objects, requests, send };
   }
 
   it("puts, gets and deletes objects by key, path-style and signed", async () => {
