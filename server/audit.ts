@@ -69,14 +69,27 @@ export interface RestoreResult {
  */
 export type Restorer = (ctx: RestoreContext) => Promise<RestoreResult>;
 
-const restorers = new Map<string, Restorer>();
-
-/** Each area registers how to restore its own entity type (once, at module load). */
-export function registerRestorer(entityType: string, restore: Restorer): void {
-  restorers.set(entityType, restore);
+export interface RestorerOptions {
+  /**
+   * The restorer accepts a null snapshot (the record did not exist, or the shipped value applied):
+   * e.g. restoring the version before a reference correction was created retires the correction.
+   * Otherwise the route refuses an empty side with a 400.
+   */
+  restoresEmpty?: boolean;
 }
 
-export function restorerFor(entityType: string): Restorer | undefined {
+interface Registered extends RestorerOptions {
+  restore: Restorer;
+}
+
+const restorers = new Map<string, Registered>();
+
+/** Each area registers how to restore its own entity type (once, at module load). */
+export function registerRestorer(entityType: string, restore: Restorer, options: RestorerOptions = {}): void {
+  restorers.set(entityType, { restore, ...options });
+}
+
+export function restorerFor(entityType: string): Registered | undefined {
   return restorers.get(entityType);
 }
 

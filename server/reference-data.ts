@@ -2,16 +2,15 @@ import type { Request } from "express";
 import { SHIPPED_REFERENCE } from "../knowledge/reference";
 import type { ReferenceData } from "../knowledge/types";
 import type { AppDeps } from "./deps";
+import { computingGroupOf, groupReference } from "./group-reference";
 
 /**
  * The reference tables a request is answered from: the one seam for a lab group's corrections.
- * Today every request gets the shipped tables. When groups keep overrides, this looks up the
- * caller's active group (`req.activeGroupId`, set by loadSession; anonymous callers keep the
- * shipped tables), loads its overrides from `deps.db` and returns
- * `applyOverrides(SHIPPED_REFERENCE, overrides)` from knowledge/overrides.ts. Cache the result
- * per group and overrides version: the look-up indexes are cached per ReferenceData object, so a
- * fresh object per request would rebuild them every time.
+ * Anonymous callers get the shipped tables; a signed-in member gets their active group's
+ * (server/group-reference.ts applies its corrections and caches the result per group).
  */
-export async function referenceFor(_req: Request, _deps: AppDeps): Promise<ReferenceData> {
-  return SHIPPED_REFERENCE;
+export async function referenceFor(req: Request, deps: AppDeps): Promise<ReferenceData> {
+  if (!req.user) return SHIPPED_REFERENCE;
+  const groupId = req.group?.id ?? (await computingGroupOf(deps.db, req.user.id, req.activeGroupId));
+  return groupId ? groupReference(deps.db, groupId) : SHIPPED_REFERENCE;
 }

@@ -115,17 +115,17 @@ export function auditRouter({ db }: AppDeps): Router {
     const actorId = req.user!.id;
     const result = await db.transaction(async (tx) => {
       const entry = await auditEntryOf(tx, groupId, id);
-      const restore = restorerFor(entry.entityType);
-      if (!restore) throw badRequest(`Entries about "${entry.entityType}" cannot be restored from the log.`);
-      const snapshot = body.version === "before" ? entry.before : entry.after;
-      if (snapshot === null || snapshot === undefined) {
+      const registered = restorerFor(entry.entityType);
+      if (!registered) throw badRequest(`Entries about "${entry.entityType}" cannot be restored from the log.`);
+      const snapshot = (body.version === "before" ? entry.before : entry.after) ?? null;
+      if (snapshot === null && !registered.restoresEmpty) {
         throw badRequest(
           body.version === "before"
             ? "This entry records a creation: there is no earlier version to bring back. Retire the record instead."
             : "This entry has no later version to bring back.",
         );
       }
-      const changed = await restore({ tx, groupId, actorId, entityId: entry.entityId, snapshot, version: body.version });
+      const changed = await registered.restore({ tx, groupId, actorId, entityId: entry.entityId, snapshot, version: body.version });
       const newId = await recordAudit(tx, {
         groupId,
         actorId,
