@@ -227,6 +227,22 @@ export function referenceRouter({ db }: AppDeps): Router {
     return new Set((await skippedOverrides(db, groupId)).map((s) => s.id));
   }
 
+  /** The active corrections of one solvent or solute, newest first. */
+  async function correctionsOf(groupId: string, targetKey: string) {
+    const rows = await db
+      .select()
+      .from(referenceOverrides)
+      .where(and(eq(referenceOverrides.groupId, groupId), eq(referenceOverrides.targetKey, targetKey), isNull(referenceOverrides.retiredAt)))
+      .orderBy(desc(referenceOverrides.createdAt));
+    return views(db, rows, await skippedSet(groupId));
+  }
+
+  /** Exact key or CAS number only: a fuzzy match here would answer for another compound. */
+  const byKeyOrCas = (raw: unknown) => {
+    const key = normaliseName(parse(idParam, raw));
+    return (s: { key: string; cas: string }) => normaliseName(s.key) === key || normaliseName(s.cas) === key;
+  };
+
   router.get("/reference/overrides", requireGroup(db), async (req, res) => {
     const q = parse(overrideListQuery, req.query);
     const groupId = req.group!.id;
@@ -326,47 +342,35 @@ export function referenceRouter({ db }: AppDeps): Router {
   });
 
   router.get("/reference/solvents/:key", requireGroup(db), async (req, res) => {
-    const key = normaliseName(parse(idParam, req.params.key));
+    const matches = byKeyOrCas(req.params.key);
     const groupId = req.group!.id;
     const ref = await groupReference(db, groupId);
-    const matches = (s: { key: string; cas: string }) => normaliseName(s.key) === key || normaliseName(s.cas) === key;
     const group = ref.solvents.find(matches);
     if (!group) throw notFound("That solvent");
     const shipped = SHIPPED_REFERENCE.solvents.find(matches) ?? group;
-    const rows = await db
-      .select()
-      .from(referenceOverrides)
-      .where(and(eq(referenceOverrides.groupId, groupId), eq(referenceOverrides.targetKey, group.key), isNull(referenceOverrides.retiredAt)))
-      .orderBy(desc(referenceOverrides.createdAt));
     const body: SolventComparison = {
       key: group.key,
       name: group.name,
       shipped: solventDetail(shipped),
       group: solventDetail(group),
-      corrections: await views(db, rows, await skippedSet(groupId)),
+      corrections: await correctionsOf(groupId, group.key),
     };
     res.json(body);
   });
 
   router.get("/reference/solutes/:key", requireGroup(db), async (req, res) => {
-    const key = normaliseName(parse(idParam, req.params.key));
+    const matches = byKeyOrCas(req.params.key);
     const groupId = req.group!.id;
     const ref = await groupReference(db, groupId);
-    const matches = (s: { key: string; cas: string }) => normaliseName(s.key) === key || normaliseName(s.cas) === key;
     const group = ref.solutes.find(matches);
     const shipped = SHIPPED_REFERENCE.solutes.find(matches);
     if (!group || !shipped) throw notFound("That aqueous solution");
-    const rows = await db
-      .select()
-      .from(referenceOverrides)
-      .where(and(eq(referenceOverrides.groupId, groupId), eq(referenceOverrides.targetKey, group.key), isNull(referenceOverrides.retiredAt)))
-      .orderBy(desc(referenceOverrides.createdAt));
     const body: SoluteComparison = {
       key: group.key,
       name: group.name,
       shippedPoints: resolve(shipped.points),
       groupPoints: resolve(group.points),
-      corrections: await views(db, rows, await skippedSet(groupId)),
+      corrections: await correctionsOf(groupId, group.key),
     };
     res.json(body);
   });
