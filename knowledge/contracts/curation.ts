@@ -1,0 +1,207 @@
+import { z } from "zod";
+import type { AttemptOutcome, CasePhBand, CaseStatus, EmulsionKind } from "./cases";
+
+/*
+ * The lead's curation of the case log: the review queue, verify, requests to the author,
+ * merging duplicates, retiring and restoring. Shared by server/routes/curation.ts and the desk.
+ */
+
+// ── retiring ─────────────────────────────────────────────────────────────────
+
+/** Why a case leaves the record (domain brief §6.2 "Retire / deprecate", in our words). */
+export const RETIRE_CODES = [
+  "superseded",
+  "unsafe",
+  "not-reproducible",
+  "not-allowed",
+  "equipment-gone",
+  "procedure-changed",
+  "duplicate",
+  "other",
+] as const;
+export type RetireCode = (typeof RETIRE_CODES)[number];
+
+export const RETIRE_LABELS: Record<RetireCode, string> = {
+  superseded: "Superseded by a better fix",
+  unsafe: "Found unsafe",
+  "not-reproducible": "Not reproducible",
+  "not-allowed": "Solvent or reagent no longer allowed here",
+  "equipment-gone": "Equipment no longer available",
+  "procedure-changed": "The procedure changed",
+  duplicate: "Duplicate of another case",
+  other: "Other",
+};
+
+const text = (min: number, max: number, what: string) =>
+  z
+    .string({ message: `Write ${what}.` })
+    .trim()
+    .min(min, `Write ${what} (at least ${min} characters).`)
+    .max(max, `Keep ${what} under ${max} characters.`);
+
+const caseId = z.string().trim().min(1, "Name the case.").max(100);
+
+export const retireBody = z.object({
+  code: z.enum(RETIRE_CODES, { message: "Pick why the case is retired." }),
+  reason: text(3, 500, "the reason"),
+});
+export type RetireBody = z.input<typeof retireBody>;
+
+export const restoreBody = z.object({ reason: z.string().trim().max(500).optional() }).default({});
+
+// ── verify ───────────────────────────────────────────────────────────────────
+
+export const verifyBody = z
+  .object({
+    /** the attempt that worked; by default the last attempt that cleared */
+    attemptId: z.string().trim().min(1).max(100).optional(),
+    note: z.string().trim().max(500).optional(),
+  })
+  .default({});
+export type VerifyBody = z.input<typeof verifyBody>;
+
+export const bulkVerifyBody = z.object({
+  ids: z
+    .array(caseId)
+    .min(1, "Select at least one case.")
+    .max(100, "Verify at most 100 cases at once.")
+    .refine((ids) => new Set(ids).size === ids.length, "A case is selected twice."),
+});
+export type BulkVerifyBody = z.input<typeof bulkVerifyBody>;
+
+// ── merge ────────────────────────────────────────────────────────────────────
+
+export const mergeBody = z.object({
+  /** the case that remains */
+  into: caseId,
+  reason: z.string().trim().max(500).optional(),
+});
+export type MergeBody = z.input<typeof mergeBody>;
+
+// ── requests to the author ───────────────────────────────────────────────────
+
+export const REQUEST_STATUSES = ["open", "answered"] as const;
+export type RequestStatus = (typeof REQUEST_STATUSES)[number];
+
+export const requestBody = z.object({ text: text(3, 2000, "what you need") });
+export type RequestBody = z.input<typeof requestBody>;
+
+export const requestPatchBody = z
+  .object({
+    status: z.enum(REQUEST_STATUSES, { message: "Status is open or answered." }).optional(),
+    reply: z.string().trim().max(2000, "Keep the reply under 2000 characters.").optional(),
+  })
+  .refine((p) => p.status !== undefined || p.reply !== undefined, { message: "Change the status or write a reply.", path: ["body"] });
+export type RequestPatchBody = z.input<typeof requestPatchBody>;
+
+export const myRequestsQuery = z.object({
+  status: z.enum([...REQUEST_STATUSES, "all"]).default("open"),
+});
+
+export interface PersonRef {
+  id: string;
+  name: string;
+}
+
+export interface CaseRequest {
+  id: string;
+  caseId: string;
+  caseTitle: string;
+  text: string;
+  status: RequestStatus;
+  reply: string | null;
+  askedBy: PersonRef;
+  askedOf: PersonRef;
+  answeredBy: PersonRef | null;
+  createdAt: string;
+  answeredAt: string | null;
+}
+
+export interface CaseRequestList {
+  requests: CaseRequest[];
+}
+
+// ── curation state (what a restore brings back) ─────────────────────────────
+
+/** A case's curation, as the audit log records it before and after each action. */
+export interface CurationState {
+  id: string;
+  verified: boolean;
+  verifiedBy: string | null;
+  verifiedAt: string | null;
+  verifiedAttemptId: string | null;
+  retired: boolean;
+  retiredAt: string | null;
+  retiredBy: string | null;
+  retiredReason: string | null;
+  /** the case this one was merged into */
+  mergedInto: string | null;
+  /** cases merged into this one (still merged) */
+  absorbed: string[];
+  attemptCount: number;
+  photoCount: number;
+}
+
+export interface MergeResponse {
+  kept: CurationState;
+  merged: CurationState;
+  moved: { attempts: number; photos: number; followers: number };
+}
+
+export interface BulkVerifyResponse {
+  verified: CurationState[];
+}
+
+// ── review queue ─────────────────────────────────────────────────────────────
+
+export const REVIEW_KINDS = ["all", "new", "resolved", "asked"] as const;
+export type ReviewKind = (typeof REVIEW_KINDS)[number];
+
+export const reviewQuery = z.object({
+  /** new = still open; resolved = resolved or abandoned, not yet verified; asked = has an open request */
+  kind: z.enum(REVIEW_KINDS).default("all"),
+  limit: z.coerce.number().int().min(1).max(200).default(100),
+  offset: z.coerce.number().int().min(0).default(0),
+});
+export type ReviewQuery = z.input<typeof reviewQuery>;
+
+export const REVIEW_CHECKS = ["no-ph", "no-attempts", "no-fix", "no-photo", "layer-surprise", "no-outcome", "safety"] as const;
+export type ReviewCheckCode = (typeof REVIEW_CHECKS)[number];
+
+/** What the lead should look at before verifying (domain brief §6.2 "Verify"). */
+export interface ReviewCheck {
+  code: ReviewCheckCode;
+  message: string;
+  tone: "info" | "caution" | "danger";
+}
+
+export interface ReviewItem {
+  id: string;
+  title: string;
+  status: CaseStatus;
+  queue: "new" | "resolved";
+  authorId: string;
+  authorName: string;
+  occurredAt: string;
+  createdAt: string;
+  updatedAt: string;
+  solvents: string[];
+  aqueousLabel: string;
+  solventFamily: string | null;
+  phBand: CasePhBand | null;
+  kind: EmulsionKind | null;
+  attemptCount: number;
+  photoCount: number;
+  whatWorked: string | null;
+  bestOutcome: AttemptOutcome | null;
+  /** the attempt a verify would mark as the working fix, when one cleared */
+  fixAttemptId: string | null;
+  openRequests: number;
+  checks: ReviewCheck[];
+}
+
+export interface ReviewResponse {
+  items: ReviewItem[];
+  total: number;
+  counts: Record<ReviewKind, number>;
+}
