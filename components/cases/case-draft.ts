@@ -105,9 +105,14 @@ function num(text: string, field: string, errors: FieldErrors, message: string):
   return n;
 }
 
+/** Unit conversion leaves float dust (0.5 L → 500.00000000000006 mL): keep 12 significant digits. */
+function tidy<T>(v: T): T {
+  return (typeof v === "number" ? Number(v.toPrecision(12)) : v) as T;
+}
+
 function parsed<T>(fn: () => T, field: string, errors: FieldErrors): T | undefined {
   try {
-    return fn();
+    return tidy(fn());
   } catch (e) {
     errors[field] = e instanceof KnowledgeInputError || e instanceof Error ? e.message : "Check this value.";
     return undefined;

@@ -1,0 +1,163 @@
+import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
+import { fireEvent, render, screen, waitFor } from "@testing-library/react-native";
+import { CaseForm } from "../../components/cases/case-form";
+import { readDraft, removeDraft } from "../../hooks/use-draft";
+import { createCaseBody } from "../../knowledge/contracts/cases";
+
+type Call = { url: string; method: string; body: unknown };
+
+/** Only the network boundary is faked. */
+function fakeFetch(status: number, payload: unknown, calls: Call[]) {
+  return jest.fn(async (input: RequestInfo | URL, init?: RequestInit) => {
+    calls.push({
+      url: String(input instanceof Request ? input.url : input),
+      method: init?.method ?? "GET",
+      body: init?.body ? JSON.parse(String(init.body)) : undefined,
+    });
+    return new Response(JSON.stringify(payload), { status, headers: { "content-type": "application/json" } });
+  });
+}
+
+const clients: QueryClient[] = [];
+
+function ui(draftKey: string, onCreated = jest.fn()) {
+  const client = new QueryClient({ defaultOptions: { queries: { retry: false }, mutations: { retry: false } } });
+  clients.push(client);
+  return (
+    <QueryClientProvider client={client}>
+      <CaseForm draftKey={draftKey} onCreated={onCreated} />
+    </QueryClientProvider>
+  );
+}
+
+const created = { id: "case-1", title: "Dichloromethane over sodium bicarbonate" };
+
+describe("CaseForm", () => {
+  const realFetch = global.fetch;
+  let n = 0;
+  let key = "";
+  beforeEach(() => {
+    n += 1;
+    key = `test-${n}`;
+  });
+  afterEach(() => {
+    global.fetch = realFetch;
+    removeDraft(key);
+    // Drop cached mutations so their clean-up timers do not hold the process open.
+    clients.splice(0).forEach((c) => c.clear());
+  });
+
+  it("keeps what was typed when the screen goes away and brings it back with a notice", async () => {
+    const calls: Call[] = [];
+    global.fetch = fakeFetch(200, created, calls) as typeof fetch;
+    const first = await render(ui(key));
+    await fireEvent.changeText(screen.getByTestId("organic-0-solvent"), "dichloromethane");
+    await fireEvent.changeText(screen.getByTestId("organic-0-volume"), "0.5 L");
+    await fireEvent.press(screen.getByTestId("aqueous-pick-sodium-bicarbonate"));
+    await fireEvent.press(screen.getByTestId("observed-aqueous"));
+    await first.unmount();
+
+    const stored = readDraft<{ organic: { solvent: string; volume: string }[]; observedBottom: string }>(key);
+    expect(stored?.data.organic[0]).toEqual({ solvent: "dichloromethane", volume: "0.5 L" });
+    expect(stored?.data.observedBottom).toBe("aqueous");
+
+    await render(ui(key));
+    expect(screen.getByTestId("draft-restored")).toBeTruthy();
+    expect(screen.getByTestId("organic-0-solvent").props.value).toBe("dichloromethane");
+    expect(screen.getByTestId("organic-0-volume").props.value).toBe("0.5 L");
+    expect(screen.getByTestId("aqueous-solute").props.value).toBe("sodium bicarbonate");
+    expect(screen.getByTestId("aqueous-concentration").props.value).toBe("saturated");
+    expect(calls).toHaveLength(0);
+  });
+
+  it("refuses to send an empty system and names each missing field", async () => {
+    const calls: Call[] = [];
+    global.fetch = fakeFetch(200, created, calls) as typeof fetch;
+    await render(ui(key));
+    await fireEvent.press(screen.getByTestId("case-save"));
+    const errors = screen.getByTestId("case-errors");
+    expect(errors).toHaveTextContent(/Solvent: Name the solvent\./);
+    expect(errors).toHaveTextContent(/Solvent volume: Give the volume/);
+    expect(errors).toHaveTextContent(/Aqueous solution: Name the aqueous phase/);
+    expect(errors).toHaveTextContent(/Aqueous volume: Give the volume/);
+    expect(calls).toHaveLength(0);
+  });
+
+  it("rejects a volume it cannot read and a volume of zero, keeping the typed text", async () => {
+    const calls: Call[] = [];
+    global.fetch = fakeFetch(200, created, calls) as typeof fetch;
+    await render(ui(key));
+    await fireEvent.changeText(screen.getByTestId("organic-0-solvent"), "DCM");
+    await fireEvent.changeText(screen.getByTestId("organic-0-volume"), "fifty");
+    await fireEvent.changeText(screen.getByTestId("aqueous-solute"), "water");
+    await fireEvent.changeText(screen.getByTestId("aqueous-volume"), "0");
+    await fireEvent.press(screen.getByTestId("case-save"));
+    expect(screen.getByTestId("case-errors")).toHaveTextContent(/Solvent volume: "fifty" is not a quantity/);
+    expect(screen.getByTestId("case-errors")).toHaveTextContent(/Aqueous volume: The volume must be more than 0 mL\./);
+    expect(screen.getByTestId("organic-0-volume").props.value).toBe("fifty");
+    expect(calls).toHaveLength(0);
+  });
+
+  it("sends canonical units in the contract's shape, then forgets the draft", async () => {
+    const calls: Call[] = [];
+    global.fetch = fakeFetch(201, created, calls) as typeof fetch;
+    const onCreated = jest.fn();
+    await render(ui(key, onCreated));
+    await fireEvent.changeText(screen.getByTestId("organic-0-solvent"), "DCM");
+    await fireEvent.changeText(screen.getByTestId("organic-0-volume"), "0.5 L");
+    await fireEvent.press(screen.getByTestId("aqueous-pick-sodium-bicarbonate"));
+    await fireEvent.press(screen.getByTestId("aqueous-volume-pick-100"));
+    await fireEvent.changeText(screen.getByTestId("temperature"), "25 °C");
+    await fireEvent.press(screen.getByTestId("kind-milky-band"));
+    await fireEvent.press(screen.getByTestId("observed-organic"));
+    await fireEvent.press(screen.getByTestId("case-save"));
+
+    await waitFor(() => expect(onCreated).toHaveBeenCalledWith(created));
+    expect(calls).toHaveLength(1);
+    expect(calls[0]?.url).toMatch(/\/api\/cases$/);
+    expect(calls[0]?.method).toBe("POST");
+    const body = createCaseBody.parse(calls[0]?.body);
+    // 0.5 L is 500 mL; "saturated" is the contract's literal; the title is suggested from the system.
+    expect(body.system.organic).toEqual([{ solvent: "DCM", volumeMl: 500 }]);
+    expect(body.system.aqueous).toEqual({ solute: "sodium bicarbonate", concentration: "saturated", volumeMl: 100 });
+    expect(body.system.temperatureC).toBe(25);
+    expect(body.observedBottom).toBe("organic");
+    expect(body.seen.kind).toBe("milky-band");
+    expect(body.title).toBe("Emulsion: DCM over saturated sodium bicarbonate");
+    expect(readDraft(key)).toBeNull();
+  });
+
+  it("puts the server's field errors on the fields and keeps the input and the draft", async () => {
+    const calls: Call[] = [];
+    const refusal = { error: { code: "bad_request", message: "Some fields need attention.", fields: { "system.organic.0.volumeMl": "The volume must be more than 0 mL." } } };
+    global.fetch = fakeFetch(400, refusal, calls) as typeof fetch;
+    const onCreated = jest.fn();
+    await render(ui(key, onCreated));
+    await fireEvent.changeText(screen.getByTestId("organic-0-solvent"), "ethyl acetate");
+    await fireEvent.changeText(screen.getByTestId("organic-0-volume"), "40");
+    await fireEvent.changeText(screen.getByTestId("aqueous-solute"), "brine");
+    await fireEvent.changeText(screen.getByTestId("aqueous-volume"), "40 mL");
+    await fireEvent.press(screen.getByTestId("case-save"));
+
+    await waitFor(() => expect(screen.getByTestId("case-errors")).toHaveTextContent(/Solvent volume: The volume must be more than 0 mL\./));
+    expect(calls).toHaveLength(1);
+    expect(onCreated).not.toHaveBeenCalled();
+    expect(screen.getByTestId("organic-0-solvent").props.value).toBe("ethyl acetate");
+    expect(readDraft<{ aqueous: { volume: string } }>(key)?.data.aqueous.volume).toBe("40 mL");
+  });
+
+  it("keeps everything when the connection drops during the save", async () => {
+    global.fetch = jest.fn(async () => {
+      throw new TypeError("Network request failed");
+    }) as typeof fetch;
+    await render(ui(key));
+    await fireEvent.changeText(screen.getByTestId("organic-0-solvent"), "toluene");
+    await fireEvent.changeText(screen.getByTestId("organic-0-volume"), "30");
+    await fireEvent.changeText(screen.getByTestId("aqueous-solute"), "water");
+    await fireEvent.changeText(screen.getByTestId("aqueous-volume"), "30");
+    await fireEvent.press(screen.getByTestId("case-save"));
+    await waitFor(() => expect(screen.getByTestId("case-save-error")).toHaveTextContent(/Your entries are kept here/));
+    expect(readDraft<{ organic: { solvent: string }[] }>(key)?.data.organic[0]?.solvent).toBe("toluene");
+    expect(screen.getByTestId("case-save")).toBeTruthy();
+  });
+});
