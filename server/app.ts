@@ -12,10 +12,12 @@ import { loadSession } from "./middleware/session";
 import { sameOriginWrites } from "./middleware/origin";
 import { auditRouter } from "./routes/audit";
 import { casesRouter } from "./routes/cases";
-import { curationRouter } from "./routes/curation";
 import { referenceRouter } from "./routes/reference";
 import { groupsRouter } from "./routes/groups";
 import { healthRouter } from "./routes/health";
+import { evaporationRouter } from "./routes/evaporation";
+import { plansRouter } from "./routes/plans";
+import { solventChoiceRouter } from "./routes/solvent-choice";
 import { photosRouter } from "./routes/photos";
 import { createLocalStorage, type Storage } from "./storage";
 import { layersRouter } from "./routes/layers";
@@ -38,7 +40,7 @@ export interface CreateAppOptions {
 }
 
 /** Each area adds its router here (one line). Routers mount under /api. */
-const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, auditRouter, casesRouter, photosRouter, referenceRouter, curationRouter];
+const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, auditRouter, casesRouter, photosRouter, referenceRouter, plansRouter, evaporationRouter, solventChoiceRouter];
 
 export function createApp(options: CreateAppOptions) {
   const baseURL = options.baseURL ?? "http://localhost:3000";
