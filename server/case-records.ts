@@ -13,10 +13,12 @@ import type {
   CaseSummary,
   CaseSystem,
   CaseSystemInput,
+  CreateCaseParsed,
   EmulsionKind,
   CaseStatus,
 } from "../knowledge/contracts/cases";
-import type { caseAttempts, casePhotos, cases } from "../db/schema";
+import type { Database } from "../db/client";
+import { caseAttempts, caseFollowers, type casePhotos, cases } from "../db/schema";
 import { badRequest } from "./middleware/errors";
 
 /*
@@ -347,4 +349,67 @@ export function toSummary(row: CaseRow, x: SummaryExtras): CaseSummary {
     retired: row.retired,
     following: x.following,
   };
+}
+
+// ── writing ──────────────────────────────────────────────────────────────────
+
+type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
+
+/**
+ * Inserts a parsed case with its attempts (in order) inside the caller's transaction; the
+ * author follows it from the start, so they hear about attempts others add.
+ */
+export async function insertCase(
+  tx: Tx,
+  args: { groupId: string; authorId: string; body: CreateCaseParsed; now?: Date; verifiedBy?: string },
+): Promise<string> {
+  const { groupId, authorId, body } = args;
+  const now = args.now ?? new Date();
+  const derived = deriveSystem(body.system);
+  const id = crypto.randomUUID();
+  const values = {
+    id,
+    groupId,
+    authorId,
+    title: body.title,
+    system: derived.system,
+    solventKeys: derived.solventKeys,
+    aqueousKey: derived.aqueousKey,
+    solventFamily: derived.solventFamily,
+    phBand: derived.phBand,
+    tags: [...new Set(body.tags)],
+    causes: [...new Set(body.causes)],
+    components: body.components,
+    predicted: derived.predicted,
+    observedBottom: body.observedBottom,
+    seen: body.seen,
+    emulsionKind: body.seen.kind,
+    notes: body.notes,
+    status: body.status,
+    finalOutcome: body.finalOutcome,
+    recovery: body.recovery,
+    occurredAt: body.occurredAt ? new Date(body.occurredAt) : now,
+    createdAt: now,
+    updatedAt: now,
+    ...(args.verifiedBy ? { verified: true, verifiedBy: args.verifiedBy, verifiedAt: now } : {}),
+  };
+  const attempts: AttemptRow[] = body.attempts.map((a, i) => ({
+    id: crypto.randomUUID(),
+    caseId: id,
+    groupId,
+    position: i + 1,
+    remedyId: a.remedyId,
+    description: a.description ?? null,
+    amount: a.amount ?? null,
+    minutes: a.minutes ?? null,
+    outcome: a.outcome,
+    note: a.note ?? null,
+    authorId,
+    createdAt: now,
+    updatedAt: now,
+  }));
+  await tx.insert(cases).values({ ...values, searchText: buildSearchText(values, attempts) });
+  if (attempts.length) await tx.insert(caseAttempts).values(attempts);
+  await tx.insert(caseFollowers).values({ caseId: id, userId: authorId, createdAt: now });
+  return id;
 }

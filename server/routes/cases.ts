@@ -25,12 +25,12 @@ import { caseAttempts, caseFollowers, casePhotos, cases, user } from "../../db/s
 import {
   buildSearchText,
   deriveSystem,
+  insertCase,
   systemInputOf,
   toAttempt,
   toPhoto,
   toSummary,
   whatWorked,
-  type AttemptRow,
   type CaseRow,
 } from "../case-records";
 import { VocabularyCache, parseSearchQuery, termTsQuery } from "../case-search";
@@ -317,55 +317,7 @@ export function casesRouter({ db }: AppDeps): Router {
 
   router.post("/cases", member, async (req, res) => {
     const body = parse(createCaseBody, req.body);
-    const derived = deriveSystem(body.system);
-    const id = crypto.randomUUID();
-    const now = new Date();
-    await db.transaction(async (tx) => {
-      const values = {
-        id,
-        groupId: req.group!.id,
-        authorId: req.user!.id,
-        title: body.title,
-        system: derived.system,
-        solventKeys: derived.solventKeys,
-        aqueousKey: derived.aqueousKey,
-        solventFamily: derived.solventFamily,
-        phBand: derived.phBand,
-        tags: [...new Set(body.tags)],
-        causes: [...new Set(body.causes)],
-        components: body.components,
-        predicted: derived.predicted,
-        observedBottom: body.observedBottom,
-        seen: body.seen,
-        emulsionKind: body.seen.kind,
-        notes: body.notes,
-        status: body.status,
-        finalOutcome: body.finalOutcome,
-        recovery: body.recovery,
-        occurredAt: body.occurredAt ? new Date(body.occurredAt) : now,
-        createdAt: now,
-        updatedAt: now,
-      };
-      const attempts: AttemptRow[] = body.attempts.map((a, i) => ({
-        id: crypto.randomUUID(),
-        caseId: id,
-        groupId: req.group!.id,
-        position: i + 1,
-        remedyId: a.remedyId,
-        description: a.description ?? null,
-        amount: a.amount ?? null,
-        minutes: a.minutes ?? null,
-        outcome: a.outcome,
-        note: a.note ?? null,
-        authorId: req.user!.id,
-        createdAt: now,
-        updatedAt: now,
-      }));
-      await tx.insert(cases).values({ ...values, searchText: buildSearchText(values, attempts) });
-      if (attempts.length) await tx.insert(caseAttempts).values(attempts);
-      // The author hears about attempts others add.
-      await tx.insert(caseFollowers).values({ caseId: id, userId: req.user!.id, createdAt: now });
-    });
+    const id = await db.transaction((tx) => insertCase(tx, { groupId: req.group!.id, authorId: req.user!.id, body }));
     res.status(201).json(await detail(req, id));
   });
 
