@@ -12,6 +12,7 @@ import { loadSession } from "./middleware/session";
 import { sameOriginWrites } from "./middleware/origin";
 import { auditRouter } from "./routes/audit";
 import { casesRouter } from "./routes/cases";
+import { adviceRouter } from "./routes/advice";
 import { referenceRouter } from "./routes/reference";
 import { groupsRouter } from "./routes/groups";
 import { healthRouter } from "./routes/health";
@@ -40,7 +41,7 @@ export interface CreateAppOptions {
 }
 
 /** Each area adds its router here (one line). Routers mount under /api. */
-const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, auditRouter, casesRouter, photosRouter, referenceRouter, plansRouter, evaporationRouter, solventChoiceRouter];
+const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, auditRouter, casesRouter, photosRouter, referenceRouter, plansRouter, evaporationRouter, solventChoiceRouter, adviceRouter];
 
 export function createApp(options: CreateAppOptions) {
   const baseURL = options.baseURL ?? "http://localhost:3000";

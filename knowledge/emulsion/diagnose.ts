@@ -39,6 +39,8 @@ export interface GroupNote {
   text: string;
   causeCode?: string;
   solventFamily?: string;
+  /** aqueous pH band ("9-12"); such a note shows only when the system's band is known and the same */
+  phBand?: string;
 }
 
 export interface RemedyResult {
@@ -686,7 +688,8 @@ export function troubleshoot(input: TroubleshootInput, options: TroubleshootOpti
       (n) =>
         n.remedyId === remedy.id &&
         (n.causeCode === undefined || likelyCodes.has(n.causeCode)) &&
-        (n.solventFamily === undefined || n.solventFamily === facts.main.family),
+        (n.solventFamily === undefined || n.solventFamily === facts.main.family) &&
+        (n.phBand === undefined || (signature !== null && n.phBand === signature.phBand)),
     );
     if (notes.length) r.groupNotes = notes;
     return r;
