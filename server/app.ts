@@ -12,6 +12,7 @@ import { loadSession } from "./middleware/session";
 import { sameOriginWrites } from "./middleware/origin";
 import { auditRouter } from "./routes/audit";
 import { casesRouter } from "./routes/cases";
+import { curationRouter } from "./routes/curation";
 import { adviceRouter } from "./routes/advice";
 import { referenceRouter } from "./routes/reference";
 import { groupsRouter } from "./routes/groups";
@@ -41,7 +42,7 @@ export interface CreateAppOptions {
 }
 
 /** Each area adds its router here (one line). Routers mount under /api. */
-const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, auditRouter, casesRouter, photosRouter, referenceRouter, plansRouter, evaporationRouter, solventChoiceRouter, adviceRouter];
+const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, auditRouter, casesRouter, photosRouter, referenceRouter, plansRouter, evaporationRouter, solventChoiceRouter, adviceRouter, curationRouter];
 
 export function createApp(options: CreateAppOptions) {
   const baseURL = options.baseURL ?? "http://localhost:3000";
