@@ -12,6 +12,7 @@ import { loadSession } from "./middleware/session";
 import { sameOriginWrites } from "./middleware/origin";
 import { auditRouter } from "./routes/audit";
 import { casesRouter } from "./routes/cases";
+import { insightRouter } from "./routes/insight";
 import { curationRouter } from "./routes/curation";
 import { adviceRouter } from "./routes/advice";
 import { referenceRouter } from "./routes/reference";
@@ -42,7 +43,7 @@ export interface CreateAppOptions {
 }
 
 /** Each area adds its router here (one line). Routers mount under /api. */
-const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, auditRouter, casesRouter, photosRouter, referenceRouter, plansRouter, evaporationRouter, solventChoiceRouter, adviceRouter, curationRouter];
+const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, auditRouter, casesRouter, photosRouter, referenceRouter, plansRouter, evaporationRouter, solventChoiceRouter, adviceRouter, curationRouter, insightRouter];
 
 export function createApp(options: CreateAppOptions) {
   const baseURL = options.baseURL ?? "http://localhost:3000";
