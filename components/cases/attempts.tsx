@@ -64,7 +64,11 @@ function AttemptItem({ caseId, attempt: a, last, canEdit }: { caseId: string; at
           {a.authorName} · {formatDateTime(a.createdAt)}
           {a.updatedAt !== a.createdAt ? " · edited" : ""}
         </Text>
-        {canEdit && !editing ? <Button label="Change" variant="quiet" onPress={() => setEditing(true)} testID={`attempt-${a.position}-edit`} /> : null}
+        {canEdit && !editing ? (
+          <View style={styles.start}>
+            <Button label="Change" variant="quiet" hint={`Change attempt ${a.position}`} onPress={() => setEditing(true)} testID={`attempt-${a.position}-edit`} />
+          </View>
+        ) : null}
         {editing ? <AttemptEdit caseId={caseId} attempt={a} onDone={() => setEditing(false)} /> : null}
       </View>
     </View>
@@ -190,6 +194,7 @@ const styles = StyleSheet.create({
   head: { flexDirection: "row", gap: space.sm, alignItems: "flex-start", flexWrap: "wrap" },
   grow: { flexGrow: 1, flexShrink: 1, flexBasis: 120 },
   edit: { gap: space.sm, paddingTop: space.sm },
+  start: { alignSelf: "flex-start", marginLeft: -space.lg },
   buttons: { flexDirection: "row", gap: space.sm, flexWrap: "wrap" },
   add: { gap: space.md },
   pair: { flexDirection: "row", gap: space.md, flexWrap: "wrap" },

@@ -1,4 +1,5 @@
 import { StyleSheet, View } from "react-native";
+import { useLayout } from "../../hooks/breakpoints";
 import { space } from "../../hooks/theme";
 import type { CaseFilters } from "../../hooks/use-cases";
 import type { GroupMember } from "../../hooks/use-me";
@@ -80,6 +81,8 @@ export function CaseFilterPanel({
   members: GroupMember[];
   userId: string;
 }) {
+  // Long chip lists scroll sideways on a phone; a wide screen has room to wrap them.
+  const phone = useLayout() === "phone";
   const set = <K extends keyof FilterState>(k: K, v: FilterState[K]) => onChange({ ...value, [k]: v });
   const authors: Choice<string>[] = [
     { value: "me", label: "Mine" },
@@ -96,7 +99,7 @@ export function CaseFilterPanel({
         </View>
       </View>
       <ChoiceChips label="Status" choices={STATUS_CHOICES} value={value.status} onChange={(v) => set("status", v)} testID="filter-status" />
-      <ChoiceChips label="Remedy tried" choices={REMEDY_CHOICES} value={value.remedy} onChange={(v) => set("remedy", v)} testID="filter-remedy" />
+      <ChoiceChips label="Remedy tried" choices={REMEDY_CHOICES} value={value.remedy} onChange={(v) => set("remedy", v)} scroll={phone} testID="filter-remedy" />
       <ChoiceChips
         label={value.remedy ? "…with the outcome" : "An attempt's outcome"}
         choices={OUTCOME_CHOICES}
@@ -104,8 +107,8 @@ export function CaseFilterPanel({
         onChange={(v) => set("outcome", v)}
         testID="filter-outcome"
       />
-      <ChoiceChips label="Suspected cause" choices={CAUSE_CHOICES} value={value.cause} onChange={(v) => set("cause", v)} testID="filter-cause" />
-      <ChoiceChips label="Logged by" choices={authors} value={value.author} onChange={(v) => set("author", v)} testID="filter-author" />
+      <ChoiceChips label="Suspected cause" choices={CAUSE_CHOICES} value={value.cause} onChange={(v) => set("cause", v)} scroll={phone} testID="filter-cause" />
+      <ChoiceChips label="Logged by" choices={authors} value={value.author} onChange={(v) => set("author", v)} scroll={phone} testID="filter-author" />
       <View style={styles.row}>
         <View style={styles.cell}>
           <Field label="From" value={value.from} onChangeText={(t) => set("from", t)} placeholder="2025-01-31" error={dateProblem(value.from)} testID="filter-from" />

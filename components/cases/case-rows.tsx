@@ -146,7 +146,7 @@ export function CaseTable({
                 ) : col.key === "status" ? (
                   <View style={styles.metaRow}>
                     <StatusPill status={c.status} />
-                    {c.verified ? <Pill tone="good" label="✓" /> : null}
+                    {c.verified ? <Pill tone="good" label="✓ Checked" /> : null}
                   </View>
                 ) : col.key === "date" ? (
                   <Text size="caption">{formatDate(c.occurredAt)}</Text>

@@ -106,10 +106,13 @@ export function CasesScreen() {
       ) : null;
     return (
       <View style={styles.results}>
-        <Text size="caption" tone="inkMuted" testID="cases-count" accessibilityLiveRegion="polite">
-          {total === 1 ? "1 case" : `${total} cases`}
-          {list.isFetching ? " · updating…" : ""}
-        </Text>
+        <View style={styles.countRow}>
+          <Text size="label" tone="inkMuted" testID="cases-count" accessibilityLiveRegion="polite">
+            {total === 1 ? "1 case" : `${total} cases`}
+            {list.isFetching ? " · updating…" : ""}
+          </Text>
+          <ExportLink filters={query} />
+        </View>
         {wide ? (
           <CaseTable
             cases={cases}
@@ -148,7 +151,6 @@ export function CasesScreen() {
           onPress={() => setShowFilters((s) => !s)}
           testID="cases-filters-toggle"
         />
-        <ExportLink filters={query} />
       </View>
       {showFilters ? (
         <View style={styles.filterBox}>
@@ -208,6 +210,7 @@ const styles = StyleSheet.create({
     lineHeight: TOUCH_MIN - 4,
   },
   results: { gap: space.md },
+  countRow: { flexDirection: "row", flexWrap: "wrap", alignItems: "center", justifyContent: "space-between", gap: space.sm },
   panes: { flexDirection: "row", gap: space.lg },
   listPane: { flex: 1 },
   detailPane: { flex: 1, maxWidth: 560, backgroundColor: colors.surface, borderRadius: radii.lg, borderWidth: 1, borderColor: colors.line },

@@ -1,4 +1,4 @@
-import { Pressable, StyleSheet, View } from "react-native";
+import { Pressable, ScrollView, StyleSheet, View } from "react-native";
 import { colors, radii, space, TOUCH_MIN } from "../../hooks/theme";
 import { Text } from "../ui/text";
 
@@ -48,31 +48,38 @@ interface Props<V extends string> {
   onChange: (v: V | null) => void;
   /** a second tap on the chosen chip clears it */
   allowNone?: boolean;
+  /** one line that scrolls sideways, for long lists on a phone */
+  scroll?: boolean;
   testID?: string;
 }
 
 /** A row of large tap targets for picking one of a few values (gloved hands, no dropdowns). */
-export function ChoiceChips<V extends string>({ label, choices, value, onChange, allowNone = true, testID }: Props<V>) {
+export function ChoiceChips<V extends string>({ label, choices, value, onChange, allowNone = true, scroll, testID }: Props<V>) {
+  const chips = choices.map((c) => {
+    const on = c.value === value;
+    return (
+      <Chip
+        key={c.value}
+        role="radio"
+        label={c.label}
+        on={on}
+        onPress={() => onChange(on && allowNone ? null : c.value)}
+        testID={testID ? `${testID}-${c.value}` : undefined}
+      />
+    );
+  });
   return (
     <View style={styles.wrap} accessibilityRole="radiogroup" accessibilityLabel={label}>
       <Text bold size="label">
         {label}
       </Text>
-      <View style={styles.row}>
-        {choices.map((c) => {
-          const on = c.value === value;
-          return (
-            <Chip
-              key={c.value}
-              role="radio"
-              label={c.label}
-              on={on}
-              onPress={() => onChange(on && allowNone ? null : c.value)}
-              testID={testID ? `${testID}-${c.value}` : undefined}
-            />
-          );
-        })}
-      </View>
+      {scroll ? (
+        <ScrollView horizontal showsHorizontalScrollIndicator={false} contentContainerStyle={styles.line}>
+          {chips}
+        </ScrollView>
+      ) : (
+        <View style={styles.row}>{chips}</View>
+      )}
     </View>
   );
 }
@@ -118,6 +125,7 @@ export function ToggleChips<V extends string>({
 const styles = StyleSheet.create({
   wrap: { gap: space.xs },
   row: { flexDirection: "row", flexWrap: "wrap", gap: space.sm },
+  line: { flexDirection: "row", gap: space.sm, paddingVertical: 2 },
   chip: {
     minHeight: TOUCH_MIN,
     paddingHorizontal: space.lg,

@@ -31,9 +31,14 @@ export function formatMinutes(min: number): string {
   return m ? `${h} h ${m} min` : `${h} h`;
 }
 
+/** A table name inside a sentence: "Sodium bicarbonate" → "sodium bicarbonate"; "THF", "N,N-…" stay. */
+export function inSentence(name: string): string {
+  return /^[A-Z][a-z]/.test(name) ? name.charAt(0).toLowerCase() + name.slice(1) : name;
+}
+
 /** "50 mL dichloromethane + 10 mL methanol" */
 export function organicLine(system: CaseSystem): string {
-  return system.organic.map((o) => `${formatVolume(o.volumeMl)} ${o.name || o.solvent}`).join(" + ");
+  return system.organic.map((o) => `${formatVolume(o.volumeMl)} ${inSentence(o.name || o.solvent)}`).join(" + ");
 }
 
 /** "50 mL saturated sodium bicarbonate, pH 8.3" */
@@ -41,5 +46,5 @@ export function aqueousLine(system: CaseSystem): string {
   const a = system.aqueous;
   const conc = formatConcentration(a.concentration);
   const ph = a.ph !== undefined ? `, pH ${a.ph.toFixed(1)}` : "";
-  return `${formatVolume(a.volumeMl)} ${conc ? `${conc} ` : ""}${a.name || a.solute}${ph}`;
+  return `${formatVolume(a.volumeMl)} ${conc ? `${conc} ` : ""}${inSentence(a.name || a.solute)}${ph}`;
 }

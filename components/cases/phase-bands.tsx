@@ -65,7 +65,7 @@ export function PhaseBands({ columns, testID }: { columns: BandColumn[]; testID?
                 {c.label}
               </Text>
               <Text size="caption" tone="inkMuted" align="center">
-                {c.order ? `${PHASE_NAME[c.order[0]]} on top` : "not recorded"}
+                {c.order ? `${PHASE_NAME[c.order[1]]} at the bottom` : "not recorded"}
               </Text>
             </View>
           );
