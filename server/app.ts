@@ -16,6 +16,9 @@ import { insightRouter } from "./routes/insight";
 import { curationRouter } from "./routes/curation";
 import { adviceRouter } from "./routes/advice";
 import { referenceRouter } from "./routes/reference";
+import { invitationsRouter } from "./routes/invitations";
+import { digestRouter } from "./routes/digest";
+import { devOutboxRouter } from "./routes/dev-outbox";
 import { groupsRouter } from "./routes/groups";
 import { healthRouter } from "./routes/health";
 import { evaporationRouter } from "./routes/evaporation";
@@ -43,7 +46,7 @@ export interface CreateAppOptions {
 }
 
 /** Each area adds its router here (one line). Routers mount under /api. */
-const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, auditRouter, casesRouter, photosRouter, referenceRouter, plansRouter, evaporationRouter, solventChoiceRouter, adviceRouter, curationRouter, insightRouter];
+const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, auditRouter, casesRouter, photosRouter, referenceRouter, plansRouter, evaporationRouter, solventChoiceRouter, adviceRouter, curationRouter, insightRouter, invitationsRouter, digestRouter, devOutboxRouter];
 
 export function createApp(options: CreateAppOptions) {
   const baseURL = options.baseURL ?? "http://localhost:3000";

@@ -4,6 +4,7 @@ import { organization } from "better-auth/plugins";
 import type { Database } from "../db/client";
 import * as schema from "../db/schema";
 import type { Mailer } from "./mail";
+import { invitationMail, resetPasswordMail } from "./mail-messages";
 import { accessControl, authRoles } from "./roles";
 
 export interface AuthOptions {
@@ -18,6 +19,9 @@ export interface AuthOptions {
   quiet?: boolean;
 }
 
+/** How long an invitation link stays valid. */
+export const INVITATION_DAYS = 7;
+
 export function createAuth(options: AuthOptions) {
   const { db, mail } = options;
   return betterAuth({
@@ -31,12 +35,10 @@ export function createAuth(options: AuthOptions) {
     emailAndPassword: {
       enabled: true,
       minPasswordLength: 8,
-      sendResetPassword: async ({ user, url }) => {
-        await mail.send({
-          to: user.email,
-          subject: "Reset your Phasewise password",
-          text: `Someone asked to reset the Phasewise password for ${user.email}.\n\nOpen this link to choose a new one (valid for one hour):\n${url}\n\nIf it was not you, ignore this message.`,
-        });
+      resetPasswordTokenExpiresIn: 60 * 60,
+      // The link opens the app's reset screen with the token; the screen posts it to /api/auth/reset-password.
+      sendResetPassword: async ({ user, token }) => {
+        await mail.send(resetPasswordMail({ to: user.email, link: `${options.baseURL}/reset-password?token=${encodeURIComponent(token)}` }));
       },
     },
     rateLimit: {
@@ -57,13 +59,20 @@ export function createAuth(options: AuthOptions) {
         roles: authRoles,
         creatorRole: "owner",
         allowUserToCreateOrganization: true,
+        invitationExpiresIn: INVITATION_DAYS * 24 * 60 * 60,
+        // A second invitation to the same address replaces the first, so one link is ever live.
+        cancelPendingInvitationsOnReInvite: true,
         sendInvitationEmail: async (data) => {
-          const link = `${options.baseURL}/invite/${data.id}`;
-          await mail.send({
-            to: data.email,
-            subject: `You are invited to ${data.organization.name} on Phasewise`,
-            text: `${data.inviter.user.name} invites you to join ${data.organization.name} as ${data.role}.\n\nAccept here: ${link}`,
-          });
+          await mail.send(
+            invitationMail({
+              to: data.email,
+              groupName: data.organization.name,
+              inviterName: data.inviter.user.name,
+              role: data.role,
+              link: `${options.baseURL}/invite/${data.id}`,
+              expiresAt: new Date(data.invitation.expiresAt),
+            }),
+          );
         },
       }),
     ],

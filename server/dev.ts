@@ -6,6 +6,7 @@ import { openDatabase } from "../db/client";
 import { isEmpty, seedDemo } from "../db/seed";
 import { createApp } from "./app";
 import { readEnv } from "./env";
+import { mailerFromSettings } from "./mail-outbox";
 
 const METRO_PORT = 8081;
 
@@ -13,10 +14,12 @@ async function main() {
   const env = readEnv();
   const handle = await openDatabase({ url: env.DATABASE_URL, dataDir: path.join(env.PHASEWISE_DATA_DIR, "db") });
   const baseURL = env.PUBLIC_URL ?? `http://localhost:${env.PORT}`;
+  const mailer = await mailerFromSettings({ smtpUrl: env.SMTP_URL, from: env.MAIL_FROM, production: false, outboxPort: env.PHASEWISE_OUTBOX_PORT });
+  console.log(mailer.describe);
   const { app, auth } = createApp({
     db: handle.db,
     dbKind: handle.kind,
-    mail: { send: async (m) => console.log(`[mail] to ${m.to}: ${m.subject}\n${m.text}`) },
+    mail: mailer.mail,
     baseURL,
     trustedOrigins: [`http://127.0.0.1:${env.PORT}`],
     dataDir: env.PHASEWISE_DATA_DIR,
@@ -34,6 +37,7 @@ async function main() {
   const stop = async () => {
     metro.kill("SIGTERM");
     server.close();
+    await mailer.close();
     await handle.close();
     process.exit(0);
   };

@@ -12,6 +12,10 @@ const schema = z.object({
   PUBLIC_URL: z.string().url().optional(),
   SMTP_URL: z.string().optional(),
   MAIL_FROM: z.string().default("Phasewise <no-reply@phasewise.invalid>"),
+  /** Without SMTP_URL, the local outbox listens on this loopback port (0: any free port). */
+  PHASEWISE_OUTBOX_PORT: z.coerce.number().int().min(0).max(65535).default(0),
+  /** Send the digest of stubborn cases and new verified fixes to leads every N hours; unset: off. */
+  PHASEWISE_DIGEST_HOURS: z.coerce.number().positive().max(24 * 366).optional(),
   PHASEWISE_S3_BUCKET: z.string().optional(),
   PHASEWISE_S3_ENDPOINT: z.string().optional(),
   PHASEWISE_S3_REGION: z.string().default("us-east-1"),

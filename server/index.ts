@@ -3,16 +3,21 @@ import { openDatabase } from "../db/client";
 import { isEmpty, seedDemo } from "../db/seed";
 import { createApp } from "./app";
 import { readEnv } from "./env";
-import { createSmtpMailer, type Mailer } from "./mail";
+import { startDigestTimer } from "./case-mail";
+import { mailerFromSettings } from "./mail-outbox";
 import { createS3StorageFromSettings } from "./storage";
 
 async function main() {
   const started = performance.now();
   const env = readEnv();
   const handle = await openDatabase({ url: env.DATABASE_URL, dataDir: path.join(env.PHASEWISE_DATA_DIR, "db") });
-  const mail: Mailer = env.SMTP_URL
-    ? createSmtpMailer(env.SMTP_URL, env.MAIL_FROM)
-    : { send: async (m) => console.log(`[mail] to ${m.to}: ${m.subject}\n${m.text}`) };
+  const mailer = await mailerFromSettings({
+    smtpUrl: env.SMTP_URL,
+    from: env.MAIL_FROM,
+    production: env.NODE_ENV === "production",
+    outboxPort: env.PHASEWISE_OUTBOX_PORT,
+  });
+  const mail = mailer.mail;
   const baseURL = env.PUBLIC_URL ?? `http://localhost:${env.PORT}`;
   // Photos go to an S3-compatible bucket when one is named; otherwise createApp uses <dataDir>/photos.
   const storage = env.PHASEWISE_S3_BUCKET
@@ -24,7 +29,7 @@ async function main() {
         secretKey: env.PHASEWISE_S3_SECRET_KEY,
       })
     : undefined;
-  const { app, auth } = createApp({
+  const { app, auth, deps } = createApp({
     db: handle.db,
     dbKind: handle.kind,
     mail,
@@ -39,8 +44,10 @@ async function main() {
     await seedDemo(handle.db, auth);
     console.log("Seeded the demo group (accounts in the README).");
   }
+  const stopDigest = env.PHASEWISE_DIGEST_HOURS ? startDigestTimer(deps, env.PHASEWISE_DIGEST_HOURS) : () => undefined;
   const server = app.listen(env.PORT, () => {
-    console.log(`Phasewise ready on ${baseURL} (${handle.kind}) in ${Math.round(performance.now() - started)} ms`);
+    console.log(`Phasewise ready on ${baseURL} (${handle.kind}) in ${Math.round(performance.now() - started)} ms; ${mailer.describe}`);
+    if (env.PHASEWISE_DIGEST_HOURS) console.log(`Digest to leads every ${env.PHASEWISE_DIGEST_HOURS} h.`);
   });
   let stopping = false;
   const stop = async () => {
@@ -48,6 +55,8 @@ async function main() {
     stopping = true;
     server.close();
     server.closeAllConnections();
+    stopDigest();
+    await mailer.close();
     await handle.close();
     process.exit(0);
   };

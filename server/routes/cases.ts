@@ -34,6 +34,7 @@ import {
   type CaseRow,
 } from "../case-records";
 import { VocabularyCache, parseSearchQuery, termTsQuery } from "../case-search";
+import { notifyFollowers } from "../case-mail";
 import type { AppDeps } from "../deps";
 import { HttpError, badRequest, forbidden, notFound } from "../middleware/errors";
 import { requireGroup, type GroupContext } from "../middleware/session";
@@ -80,7 +81,7 @@ function startOfDay(value: string): Date {
   return new Date(/^\d{4}-\d{2}-\d{2}$/.test(value) ? `${value}T00:00:00.000Z` : value);
 }
 
-export function casesRouter({ db }: AppDeps): Router {
+export function casesRouter({ db, mail, baseURL }: AppDeps): Router {
   const router = Router();
   const vocabularies = new VocabularyCache();
 
@@ -451,7 +452,10 @@ export function casesRouter({ db }: AppDeps): Router {
       return { caseId: row.id, attemptId };
     });
     const d = await detail(req, caseId);
-    res.status(201).json(d.attempts.find((a) => a.id === attemptId));
+    const attempt = d.attempts.find((a) => a.id === attemptId);
+    res.status(201).json(attempt);
+    // Followers hear of it after the answer has gone; a mail failure never fails the attempt.
+    if (attempt) void notifyFollowers({ db, mail, baseURL }, caseId, attempt);
   });
 
   router.patch("/cases/:id/attempts/:attemptId", member, async (req, res) => {
