@@ -102,16 +102,26 @@ export class SearchVocabulary {
 
 /**
  * One term as a tsquery: every word must match (as a prefix, so "emul" finds "emulsion"), each
- * word also by its close spellings in the vocabulary. Only [a-z0-9] reach the query text, so the
- * string is always valid tsquery syntax.
+ * word also by its close spellings in the vocabulary. A term that names a reference entry also
+ * matches by the entry's own name, which every case using it carries in its search text (so a
+ * misspelt "dichlormethane" still finds them); one tsquery per term keeps the GIN index usable.
+ * Only [a-z0-9] reach the query text, so the string is always valid tsquery syntax.
  */
-export function termTsQuery(term: SearchTerm, vocab: SearchVocabulary): string {
-  return searchWords(term.text)
+export function termTsQuery(term: SearchTerm, vocab: SearchVocabulary, ref: ReferenceData = SHIPPED_REFERENCE): string {
+  // The words of a named entry must stand together ("sodium <-> chloride"), or "methylene chloride"
+  // plus "sodium bicarbonate" elsewhere in a case would pass for sodium chloride.
+  const joiner = term.concept ? " <-> " : " & ";
+  const typed = searchWords(term.text)
     .map((w) => {
       const options = [`${w}:*`, ...vocab.corrections(w)];
       return options.length === 1 ? options[0]! : `(${options.join(" | ")})`;
     })
-    .join(" & ");
+    .join(joiner);
+  const [kind, key] = term.concept?.split(":") ?? [];
+  const entry = kind === "solvent" ? ref.solvents.find((s) => s.key === key) : kind === "aqueous" ? ref.solutes.find((s) => s.key === key) : undefined;
+  if (!entry) return typed;
+  const named = searchWords(entry.name).join(" <-> ");
+  return named === typed ? typed : `(${typed}) | (${named})`;
 }
 
 /**

@@ -135,11 +135,7 @@ export function casesRouter({ db, mail, baseURL }: AppDeps): Router {
       for (const term of terms) {
         const tq = termTsQuery(term, vocab);
         queries.push(`(${tq})`);
-        const text = sql`${cases.searchVector} @@ to_tsquery('simple', ${tq})`;
-        const [kind, key] = term.concept?.split(":") ?? [];
-        const concept =
-          kind === "solvent" ? arrayContains(cases.solventKeys, [key!]) : kind === "aqueous" ? eq(cases.aqueousKey, key!) : null;
-        where.push(concept ? sql`(${text} or ${concept})` : text);
+        where.push(sql`${cases.searchVector} @@ to_tsquery('simple', ${tq})`);
       }
       rank = sql`ts_rank(${cases.searchVector}, to_tsquery('simple', ${queries.join(" | ")}))`;
     }
@@ -199,17 +195,16 @@ export function casesRouter({ db, mail, baseURL }: AppDeps): Router {
 
   async function listCases(req: Request, f: CaseListFilters, limit: number, offset: number) {
     const { where, orderBy } = await listQuery(req, f);
-    const [rows, totals] = await Promise.all([
-      db
-        .select({ ...caseColumns, authorName: user.name })
-        .from(cases)
-        .innerJoin(user, eq(user.id, cases.authorId))
-        .where(where)
-        .orderBy(...orderBy)
-        .limit(limit)
-        .offset(offset),
-      db.select({ n: count() }).from(cases).where(where),
-    ]);
+    // The total rides along as a window count, so the filters and the search run once.
+    const rows = await db
+      .select({ ...caseColumns, authorName: user.name, total: sql<number>`count(*) over ()`.mapWith(Number) })
+      .from(cases)
+      .innerJoin(user, eq(user.id, cases.authorId))
+      .where(where)
+      .orderBy(...orderBy)
+      .limit(limit)
+      .offset(offset);
+    const totals = rows.length > 0 || offset === 0 ? [{ n: rows[0]?.total ?? 0 }] : await db.select({ n: count() }).from(cases).where(where);
     return { cases: await summaries(rows, req.user!.id), total: Number(totals[0]?.n ?? 0) };
   }
 
