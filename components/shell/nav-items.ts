@@ -11,6 +11,8 @@ export interface NavItem {
 /** Each area adds one entry here (and a route group under app/(app)/). */
 export const NAV_ITEMS: NavItem[] = [
   { href: "/", label: "Home", icon: "home", match: "/" },
+  { href: "/layers", label: "Layers", icon: "layers", match: "/layers" },
   { href: "/group", label: "Group", icon: "group", match: "/group" },
   { href: "/cases", label: "Cases", icon: "cases", match: "/cases" },
+  { href: "/solvents", label: "Solvents", icon: "solvents", match: "/solvents" },
 ];

@@ -1,7 +1,9 @@
 import { Router } from "express";
 import { fieldErrors, layerPredictRequestSchema, round3, type LayerPredictResponse } from "../../knowledge/contracts/layers";
 import { sourceTitle } from "../../knowledge/contracts/solvents";
-import { predictLayers, type LayerPrediction } from "../../knowledge/layers";
+import { predictLayers, type LayerInput, type LayerPrediction } from "../../knowledge/layers";
+import { findSolute, findSolvent, normaliseName } from "../../knowledge/reference";
+import type { KnowledgeWarning, ReferenceData } from "../../knowledge/types";
 import type { AppDeps } from "../deps";
 import { badRequest } from "../middleware/errors";
 import { referenceFor } from "../reference-data";
@@ -25,6 +27,34 @@ export function layerPredictResponse(p: LayerPrediction): LayerPredictResponse {
   };
 }
 
+interface Named {
+  key: string;
+  name: string;
+  cas: string;
+  formula: string;
+  synonyms: string[];
+}
+
+const isOwnName = (item: Named, typed: string) =>
+  [item.key, item.name, item.cas, item.formula, ...item.synonyms].some((n) => normaliseName(n) === normaliseName(typed));
+
+/**
+ * The look-ups forgive typing slips, and a slip can land on another compound: say so whenever
+ * a name was read as something it does not literally name.
+ */
+export function interpretedNames(request: LayerInput, ref: ReferenceData): KnowledgeWarning[] {
+  const read: { typed: string; as?: Named }[] = [
+    ...request.organic.map((p) => ({ typed: p.solvent, as: findSolvent(p.solvent, ref) })),
+    { typed: request.aqueous.solute, as: findSolute(request.aqueous.solute, ref) },
+  ];
+  return read
+    .filter((r): r is { typed: string; as: Named } => !!r.as && !isOwnName(r.as, r.typed))
+    .map((r) => ({
+      code: "name-interpreted",
+      message: `Read “${r.typed}” as ${r.as.name} (CAS ${r.as.cas}); if you meant another compound, it is not in the tables.`,
+    }));
+}
+
 /** Public: which layer is on top, from the phase densities. */
 export function layersRouter(deps: AppDeps): Router {
   const router = Router();
@@ -34,7 +64,8 @@ export function layersRouter(deps: AppDeps): Router {
     const ref = await referenceFor(req, deps);
     // Unknown names, impossible concentrations and temperatures outside a solvent's liquid
     // range throw KnowledgeInputError: the error handler answers 400 with the field and suggestions.
-    res.json(layerPredictResponse(predictLayers(parsed.data, ref)));
+    const answer = layerPredictResponse(predictLayers(parsed.data, ref));
+    res.json({ ...answer, warnings: [...interpretedNames(parsed.data, ref), ...answer.warnings] });
   });
   return router;
 }

@@ -2,6 +2,7 @@ import { Router } from "express";
 import { z } from "zod";
 import { aqueousSolutionEntry, solventDetail, solventListItem } from "../../knowledge/contracts/solvents";
 import { normaliseName, suggestSolvents } from "../../knowledge/reference";
+import type { ReferenceData, Solvent } from "../../knowledge/types";
 import type { AppDeps } from "../deps";
 import { HttpError } from "../middleware/errors";
 import { parse } from "../middleware/validate";
@@ -12,6 +13,17 @@ const listQuery = z.object({
 });
 const keyParam = z.string().trim().min(1).max(120);
 
+/** The best fuzzy matches always show; beyond them only entries that contain what was typed. */
+const FUZZY_SHOWN = 8;
+
+/** A search of the list: fuse.js ranks; the long tail of weak fuzzy hits is cut off. */
+export function searchSolvents(q: string, ref: ReferenceData): Solvent[] {
+  const wanted = normaliseName(q);
+  return suggestSolvents(q, ref, ref.solvents.length).filter(
+    (s, i) => i < FUZZY_SHOWN || [s.key, s.name, s.cas, s.formula, ...s.synonyms].some((n) => normaliseName(n).includes(wanted)),
+  );
+}
+
 /** Public reference tables: solvents and aqueous work-up solutions, each value with its source. */
 export function solventsRouter(deps: AppDeps): Router {
   const router = Router();
@@ -19,7 +31,7 @@ export function solventsRouter(deps: AppDeps): Router {
   router.get("/solvents", async (req, res) => {
     const { q } = parse(listQuery, req.query);
     const ref = await referenceFor(req, deps);
-    const found = q ? suggestSolvents(q, ref, ref.solvents.length) : ref.solvents;
+    const found = q ? searchSolvents(q, ref) : ref.solvents;
     res.json({ solvents: found.map(solventListItem) });
   });
 

@@ -48,6 +48,7 @@ describe("POST /api/layers/predict", () => {
     for (const x of [b.organicDensityGPerMl, b.aqueousDensityGPerMl, b.densityDifferenceGPerMl]) expect(decimals(x)).toBeLessThanOrEqual(3);
     expect(b.confidence).toBe("clear");
     expect(b.warnings.map((w: { code: string }) => w.code)).toContain("halogenated");
+    expect(b.warnings.map((w: { code: string }) => w.code)).not.toContain("name-interpreted");
     for (const w of b.warnings) {
       expect(typeof w.code).toBe("string");
       expect(w.message.length).toBeGreaterThan(10);
@@ -152,6 +153,8 @@ describe("POST /api/layers/predict", () => {
     const typo = await predict({ organic: [{ solvent: "dichloromethan", volumeMl: 10 }], aqueous: { solute: "water", volumeMl: 10 }, temperatureC: 20 });
     expect(typo.status).toBe(200);
     expect(typo.body.organicParts[0].name).toBe("Dichloromethane");
+    // …and says how it read the name, since a slip can land on another compound.
+    expect(typo.body.warnings[0]).toEqual({ code: "name-interpreted", message: expect.stringContaining("“dichloromethan” as Dichloromethane (CAS 75-09-2)") });
 
     const res = await predict({ organic: [{ solvent: "dikloromethan", volumeMl: 10 }], aqueous: { solute: "water", volumeMl: 10 }, temperatureC: 20 });
     expect(res.status).toBe(400);

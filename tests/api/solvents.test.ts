@@ -67,6 +67,16 @@ describe("GET /api/solvents", () => {
     expect(res.body.solvents[0].key).toBe(key);
   });
 
+  it("cuts the weak fuzzy tail: a search for ether lists the ethers, not every solvent", async () => {
+    const res = await request(t.app).get("/api/solvents").query({ q: "ether" });
+    const keys = res.body.solvents.map((s: Item) => s.key);
+    expect(keys[0]).toBe("diethyl-ether");
+    expect(keys).toEqual(expect.arrayContaining(["mtbe", "cpme"]));
+    expect(keys.length).toBeLessThanOrEqual(16);
+    expect(keys).not.toContain("dmso");
+    expect(keys).not.toContain("dichloromethane");
+  });
+
   it("answers an empty list for nothing like a solvent", async () => {
     const res = await request(t.app).get("/api/solvents").query({ q: "qqqqzzzz" });
     expect(res.status).toBe(200);

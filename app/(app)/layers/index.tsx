@@ -1,0 +1,3 @@
+import { LayerCheckScreen } from "../../../components/layers/layer-check-screen";
+
+export default LayerCheckScreen;

@@ -1,0 +1,5 @@
+import { SolventsScreen } from "../../../components/solvents/solvents-screen";
+
+export default function SolventsRoute() {
+  return <SolventsScreen />;
+}
