@@ -38,6 +38,11 @@ const receivePhoto: RequestHandler = (req, res, next) => {
       next(badRequest("Send the photo in the form field named photo.", { photo: "Send the photo in the form field named photo." }));
       return;
     }
+    // busboy's own errors (truncated form, no boundary, bad part header) are the sender's fault.
+    if (err && !(err instanceof multer.MulterError)) {
+      next(badRequest("The upload is not a readable multipart form.", { photo: "Send the photo as a multipart form upload." }));
+      return;
+    }
     next(err);
   });
 };

@@ -185,6 +185,13 @@ describe("POST /api/cases/:id/photos", () => {
     const wrong = await a.chemist.agent.post(`/api/cases/${c.id}/photos`).attach("image", await smallPng(), { filename: "p.png" });
     expect(wrong.status).toBe(400);
     expect(wrong.body.error.fields).toHaveProperty("photo");
+    // A form cut off before its closing boundary.
+    const truncated = await a.chemist.agent
+      .post(`/api/cases/${c.id}/photos`)
+      .set("Content-Type", "multipart/form-data; boundary=xyz")
+      .send('--xyz\r\nContent-Disposition: form-data; name="photo"; filename="p.png"\r\nContent-Type: image/png\r\n\r\nnot finished');
+    expect(truncated.status).toBe(400);
+    expect(await photoRows(c.id)).toBe(0);
   });
 
   it("answers 401 without a session, 403 for a chemist on another's case, 404 across groups", async () => {
