@@ -2,6 +2,7 @@ import { useState } from "react";
 import { StyleSheet, View } from "react-native";
 import {
   CLEAR_DENSITY_DIFFERENCE_G_PER_ML,
+  DEFAULT_DISSOLVED_DENSITY_G_PER_ML,
   TOO_CLOSE_DENSITY_DIFFERENCE_G_PER_ML,
   type LayerConfidence,
   type LayerInput,
@@ -69,6 +70,16 @@ function marginLine(p: LayerPrediction): string {
     case "one-phase":
       return "Expect a single liquid phase, not two layers.";
   }
+}
+
+/** What the numbers rest on, in one short line (UX: no footnote hunt). */
+export function restsOn(input: LayerInput, p: LayerPrediction): string | null {
+  const parts = [
+    p.organicParts.length > 1 ? "ideal mixing of the solvents assumed" : undefined,
+    (input.dissolvedSolidsG ?? 0) > 0 ? `dissolved product taken as ${DEFAULT_DISSOLVED_DENSITY_G_PER_ML.toFixed(1)} g/mL` : undefined,
+    input.temperatureC !== 20 ? `densities corrected from 20 °C to ${formatTemperatureC(input.temperatureC)}` : undefined,
+  ].filter(Boolean);
+  return parts.length ? `${parts.join("; ")}.`.replace(/^./, (c) => c.toUpperCase()) : null;
 }
 
 function drawnLayers(input: LayerInput, p: LayerPrediction): DrawnLayer[] {
@@ -180,6 +191,11 @@ export function LayerAnswer({ evaluation, drawingWidth = 300 }: LayerAnswerProps
         <Badge label={c.label} tone={c.tone} />
         <Text style={styles.grow}>{marginLine(p)}</Text>
       </View>
+      {restsOn(input, p) ? (
+        <Text size="caption" tone="inkMuted" testID="answer-rests-on">
+          {restsOn(input, p)}
+        </Text>
+      ) : null}
       {orderNotes.map((w) => (
         <Notice key={w.code} tone="caution" testID={`warning-${w.code}`}>
           {w.message}

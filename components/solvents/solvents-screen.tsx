@@ -229,7 +229,7 @@ export function SolventsScreen({ selectedKey }: { selectedKey?: string }) {
     </View>
   );
   const sortChoices = (q ? (["match"] as SortKey[]) : []).concat(["name", "density", "bp", "flash", "guide"]);
-  const subtitle = `${list.data?.solvents.length ?? "…"} ${q ? "matching" : "in the tables"}, each value with its source`;
+  const subtitle = `${list.data?.solvents.length ?? "…"} ${q ? "matching" : "in the tables"} · densities in g/mL at 20 °C · every value with its source`;
 
   if (wide) {
     // Both panes fit the window and scroll on their own, so the chosen solvent stays in view.

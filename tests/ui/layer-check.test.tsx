@@ -80,6 +80,20 @@ describe("LayerCheck", () => {
     expect(screen.getByTestId("answer-top")).toHaveTextContent("Top layer: organic");
     expect(screen.getByTestId("funnel-drawing").props.accessibilityLabel).toMatch(/Top layer: organic, 100 mL, 0\.867 g\/mL\. Bottom layer: aqueous, 50 mL, 0\.998 g\/mL/);
     expect(screen.getByTestId("answer-certainty")).toHaveTextContent(/Clear call/);
+    expect(screen.queryByTestId("answer-rests-on")).toBeNull();
+  });
+
+  it("mixes a co-solvent by volume and says it assumed ideal mixing", async () => {
+    await renderCheck();
+    await pick("organic-0", "CH2Cl2", "dichloromethane");
+    await fireEvent.changeText(screen.getByTestId("organic-0-volume"), "30 mL");
+    await fireEvent.press(screen.getByTestId("organic-add"));
+    await pick("organic-1", "hexane", "hexane");
+    await pick("aqueous", "water", "water");
+    // By hand from CRC densities: (30 × 1.3266 + 10 × 0.6594) / 40 = 1.1598 g/mL.
+    expect(textOf("layer-answer")).toContain("dichloromethane + hexane, 1.160 g/mL");
+    expect(screen.getByTestId("answer-bottom")).toHaveTextContent("Bottom layer: organic");
+    expect(screen.getByTestId("answer-rests-on")).toHaveTextContent("Ideal mixing of the solvents assumed.");
   });
 
   it("reads sat. brine as saturated and refuses brine above saturation at the field", async () => {
