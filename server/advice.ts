@@ -1,6 +1,6 @@
 import { and, asc, eq, inArray, isNull } from "drizzle-orm";
 import { z } from "zod";
-import { adviceScope, clearedText, type AdviceNote } from "../knowledge/contracts/advice";
+import { adviceScope, type AdviceNote } from "../knowledge/contracts/advice";
 import type { CasePhBand } from "../knowledge/contracts/cases";
 import { isSimilar, type EvidenceRecord } from "../knowledge/emulsion/evidence";
 import type { GroupNote } from "../knowledge/emulsion";
@@ -88,14 +88,14 @@ export async function adviceNotes(db: DbOrTx, groupId: string, options: { includ
 }
 
 /**
- * The group's live notes for the emulsion help. The text carries its scope, evidence and the
- * cases it rests on, so any screen that lists note texts shows all three.
+ * The group's live notes for the emulsion help. The text carries its scope and the cases it
+ * rests on; `evidence` (cleared n of m) travels beside it for the screen to show.
  */
 export async function adviceFor(db: Database, groupId: string): Promise<(GroupNote & { id: string; evidence: { cleared: number; tried: number } })[]> {
   const notes = await adviceNotes(db, groupId);
   return notes.map((n) => {
     const cited = n.sources.filter((s) => !s.retired).map((s) => `“${s.title}”`);
-    const text = `${n.text} (Group advice for ${n.scope}: ${clearedText(n.evidence)} in the group's cases${cited.length ? `; from ${cited.join(", ")}` : ""}.)`;
+    const text = `${n.text} (Group advice for ${n.scope}${cited.length ? `; from ${cited.join(", ")}` : ""}.)`;
     return {
       id: n.id,
       remedyId: n.remedyId,

@@ -12,6 +12,7 @@ import { loadSession } from "./middleware/session";
 import { sameOriginWrites } from "./middleware/origin";
 import { auditRouter } from "./routes/audit";
 import { casesRouter } from "./routes/cases";
+import { backupRouter } from "./routes/backup";
 import { insightRouter } from "./routes/insight";
 import { curationRouter } from "./routes/curation";
 import { adviceRouter } from "./routes/advice";
@@ -46,7 +47,7 @@ export interface CreateAppOptions {
 }
 
 /** Each area adds its router here (one line). Routers mount under /api. */
-const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, auditRouter, casesRouter, photosRouter, referenceRouter, plansRouter, evaporationRouter, solventChoiceRouter, adviceRouter, curationRouter, insightRouter, invitationsRouter, digestRouter, devOutboxRouter];
+const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, auditRouter, casesRouter, photosRouter, referenceRouter, plansRouter, evaporationRouter, solventChoiceRouter, adviceRouter, curationRouter, insightRouter, invitationsRouter, digestRouter, devOutboxRouter, backupRouter];
 
 export function createApp(options: CreateAppOptions) {
   const baseURL = options.baseURL ?? "http://localhost:3000";

@@ -119,9 +119,10 @@ describe("the note in the emulsion help", () => {
     expect(pad.groupNotes).toHaveLength(1);
     const text = pad.groupNotes![0]!.text;
     expect(text).toMatch(/^In this group, filter through a pad of diatomaceous earth first\./);
-    expect(text).toContain("cleared 2 of 3");
+    expect(text).toContain("Group advice for halogenated solvents over strongly basic water (pH above 12)");
     expect(text).toContain("“Soapy band after saponification”");
-    expect(pad.groupNotes![0]).toMatchObject({ solventFamily: "halogenated", phBand: ">12" });
+    // cleared n of m travels beside the text (the hand count in beforeAll)
+    expect(pad.groupNotes![0]).toMatchObject({ solventFamily: "halogenated", phBand: ">12", evidence: { cleared: 2, tried: 3 } });
     // The note sits on its remedy only.
     for (const m of r.remedies.filter((x) => x.id !== "filter-pad")) expect(m.groupNotes).toBeUndefined();
   });
