@@ -1,5 +1,6 @@
 import { and, asc, desc, eq, gte, inArray, isNull, ne, sql } from "drizzle-orm";
 import type { CaseAttempt } from "../knowledge/contracts/cases";
+import type { Digest, SentDigest } from "../knowledge/contracts/digest";
 import { caseAttempts, caseFollowers, cases, member, organization, user } from "../db/schema";
 import { remedyLabel } from "./case-records";
 import type { AppDeps } from "./deps";
@@ -73,30 +74,6 @@ export async function notifyFollowers(deps: MailDeps, caseId: string, attempt: C
   }
 }
 
-export interface DigestCase {
-  id: string;
-  title: string;
-  openDays: number;
-  failedAttempts: number;
-}
-
-export interface DigestFix {
-  id: string;
-  title: string;
-  fix: string;
-  verifiedAt: string;
-}
-
-export interface Digest {
-  groupId: string;
-  groupName: string;
-  since: string;
-  stubborn: DigestCase[];
-  verified: DigestFix[];
-  /** the leads and owners the digest goes to */
-  recipients: string[];
-}
-
 /** What this week's digest of a group holds (the desk shows it before sending). */
 export async function buildDigest(deps: MailDeps, groupId: string, now = new Date()): Promise<Digest> {
   const { db } = deps;
@@ -160,7 +137,7 @@ export async function sendDigest(
   deps: MailDeps,
   groupId: string,
   options: { now?: Date; skipEmpty?: boolean } = {},
-): Promise<Digest & { sent: number }> {
+): Promise<SentDigest> {
   const digest = await buildDigest(deps, groupId, options.now);
   if (options.skipEmpty && digest.stubborn.length === 0 && digest.verified.length === 0) return { ...digest, sent: 0 };
   const caseLink = (id: string) => `${deps.baseURL}/cases/${id}`;

@@ -15,4 +15,5 @@ export const NAV_ITEMS: NavItem[] = [
   { href: "/group", label: "Group", icon: "group", match: "/group" },
   { href: "/cases", label: "Cases", icon: "cases", match: "/cases" },
   { href: "/solvents", label: "Solvents", icon: "solvents", match: "/solvents" },
+  { href: "/desk", label: "Desk", icon: "desk", match: "/desk" },
 ];

@@ -1,0 +1,5 @@
+import { DeskScreen } from "../../../components/desk/desk-screen";
+
+export default function Desk() {
+  return <DeskScreen />;
+}

@@ -1,0 +1,42 @@
+import type { ComponentType } from "react";
+import type { GroupRole, MyGroup } from "../../hooks/use-me";
+import { AuditSection } from "./audit-section";
+import { DigestSection } from "./digest-section";
+import { PeopleSection } from "./people-section";
+import { ReferenceSection } from "./reference-section";
+
+/** What every desk section receives. */
+export interface DeskSectionProps {
+  group: MyGroup & { userId: string };
+  /** the caller's role reaches `actsFrom`; otherwise the section shows read-only (the server refuses anyway) */
+  canAct: boolean;
+}
+
+export interface DeskSection {
+  /** the URL segment: /desk/<key> */
+  key: string;
+  label: string;
+  /** one line under the tabs: what the section is for */
+  summary: string;
+  /** the weakest role whose actions the section offers */
+  actsFrom: GroupRole;
+  component: ComponentType<DeskSectionProps>;
+}
+
+/** The lead's desk, one entry per tab, in tab order. Add a section with one entry here. */
+export const DESK_SECTIONS: DeskSection[] = [
+  { key: "people", label: "People", summary: "Members and their roles; invite by e-mail, revoke pending invitations.", actsFrom: "lead", component: PeopleSection },
+  {
+    key: "reference",
+    label: "Reference",
+    summary: "The group's corrections to solvent and solution values, each with its source and reason, beside the shipped value.",
+    actsFrom: "lead",
+    component: ReferenceSection,
+  },
+  { key: "audit", label: "Audit log", summary: "Every curation action: who, when, before and after; bring back an earlier version.", actsFrom: "lead", component: AuditSection },
+  { key: "digest", label: "Digest", summary: "The weekly mail to leads: stubborn open cases and newly verified fixes.", actsFrom: "lead", component: DigestSection },
+];
+
+export function deskSection(key: string | undefined): DeskSection {
+  return DESK_SECTIONS.find((s) => s.key === key) ?? DESK_SECTIONS[0]!;
+}
