@@ -57,9 +57,9 @@ function FollowButton({ detail }: { detail: CaseDetail }) {
 function Outcome({ detail }: { detail: CaseDetail }) {
   const tone = detail.bestOutcome ? OUTCOME[detail.bestOutcome].tone : "neutral";
   return (
-    <View style={styles.answer} testID="case-what-worked">
+    <View style={[styles.answer, { borderLeftColor: tone === "neutral" ? colors.line : colors[tone] }]} testID="case-what-worked">
       {detail.whatWorked ? (
-        <Text size="title" bold tone={tone === "good" ? "good" : "ink"}>
+        <Text size="title" bold tone={tone === "good" ? "good" : tone === "caution" ? "caution" : "ink"}>
           {detail.whatWorked.charAt(0).toUpperCase() + detail.whatWorked.slice(1)}
         </Text>
       ) : (
@@ -281,7 +281,7 @@ const styles = StyleSheet.create({
   wrap: { gap: space.lg },
   meta: { gap: space.xs },
   pills: { flexDirection: "row", flexWrap: "wrap", gap: space.sm },
-  answer: { gap: space.xs, borderLeftWidth: 5, borderLeftColor: colors.good, paddingLeft: space.md },
+  answer: { gap: space.xs, borderLeftWidth: 5, paddingLeft: space.md },
   actions: { flexDirection: "row", flexWrap: "wrap", gap: space.md, alignItems: "flex-start" },
   followWrap: { gap: space.xs },
   kv: { gap: space.xs },

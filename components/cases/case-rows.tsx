@@ -10,7 +10,10 @@ import { KIND, OUTCOME } from "./vocab";
 
 /** The line that answers "what worked?" at a glance. */
 export function workedLine(c: CaseSummary): { text: string; tone: "good" | "inkMuted" | "caution" } {
-  if (c.whatWorked) return { text: `${OUTCOME.cleared.mark} ${c.whatWorked}`, tone: "good" };
+  if (c.whatWorked) {
+    const partly = c.bestOutcome === "partly";
+    return { text: `${OUTCOME[partly ? "partly" : "cleared"].mark} ${c.whatWorked}`, tone: partly ? "caution" : "good" };
+  }
   if (c.bestOutcome === "partly") return { text: `${OUTCOME.partly.mark} partly cleared after ${c.attemptCount} attempt${c.attemptCount === 1 ? "" : "s"}`, tone: "caution" };
   if (c.attemptCount) return { text: `${c.attemptCount} attempt${c.attemptCount === 1 ? "" : "s"}, nothing cleared it yet`, tone: "inkMuted" };
   return { text: "no attempts logged", tone: "inkMuted" };

@@ -4,6 +4,7 @@ import { Linking, Platform, ScrollView, StyleSheet, useWindowDimensions, View } 
 import { useLayout } from "../../hooks/breakpoints";
 import { colors, radii, space, TOUCH_MIN } from "../../hooks/theme";
 import { caseExportUrl, useCaseQuery, useCasesQuery, type CaseFilters } from "../../hooks/use-cases";
+import { useDraft } from "../../hooks/use-draft";
 import { useActiveGroup, useMembersQuery } from "../../hooks/use-me";
 import { Button } from "../ui/button";
 import { Field } from "../ui/field";
@@ -15,6 +16,13 @@ import { activeFilterCount, CaseFilterPanel, EMPTY_FILTERS, toQuery, type Filter
 import { CaseCard, CaseTable, type SortState } from "./case-rows";
 
 const PAGE = 50;
+
+interface ListView {
+  filters: FilterState;
+  sort: SortState | null;
+  selected: string | null;
+}
+const INITIAL_VIEW: ListView = { filters: EMPTY_FILTERS, sort: null, selected: null };
 const SEARCH_DELAY_MS = 300;
 
 function useDebounced<T>(value: T, ms: number): T {
@@ -61,11 +69,16 @@ export function CasesScreen() {
   const router = useRouter();
   const group = useActiveGroup();
   const members = useMembersQuery(group?.id).data?.members ?? [];
-  const [filters, setFilters] = useState<FilterState>(EMPTY_FILTERS);
+  // The search, sort and open case outlive the screen: back from a case, a rotated phone or a
+  // window crossing the breakpoint (the shell remounts) all find the list as it was left.
+  const view = useDraft<ListView>(`cases-list:${group?.userId ?? ""}`, INITIAL_VIEW);
+  const { filters, sort, selected } = view.value;
+  const setFilters = (next: FilterState | ((f: FilterState) => FilterState)) =>
+    view.set((v) => ({ ...v, filters: typeof next === "function" ? next(v.filters) : next }));
+  const setSort = (s: SortState) => view.set((v) => ({ ...v, sort: s }));
+  const setSelected = (id: string | null) => view.set((v) => ({ ...v, selected: id }));
   const [showFilters, setShowFilters] = useState(false);
-  const [sort, setSort] = useState<SortState | null>(null);
   const [limit, setLimit] = useState(PAGE);
-  const [selected, setSelected] = useState<string | null>(null);
   const [paneTop, setPaneTop] = useState(0);
 
   const debounced = useDebounced(filters, SEARCH_DELAY_MS);
@@ -109,7 +122,7 @@ export function CasesScreen() {
         <View style={styles.countRow}>
           <Text size="label" tone="inkMuted" testID="cases-count" accessibilityLiveRegion="polite">
             {total === 1 ? "1 case" : `${total} cases`}
-            {list.isFetching ? " · updating…" : ""}
+            {list.isFetching ? " · updating…" : shownSort.sort === "relevance" ? " · best match first" : ""}
           </Text>
           <ExportLink filters={query} />
         </View>

@@ -81,7 +81,14 @@ describe("case log", () => {
       await page.getByTestId("photo-thumb-0").waitFor();
       await page.getByTestId("photo-thumb-0").click();
       await page.getByTestId("photo-full").waitFor();
-      const natural = await page.getByTestId("photo-full").locator("img").first().evaluate((img) => (img as HTMLImageElement).naturalWidth);
+      const natural = await page.getByTestId("photo-full").locator("img").first().evaluate(
+        (el) =>
+          new Promise<number>((resolve) => {
+            const img = el as HTMLImageElement;
+            if (img.complete && img.naturalWidth) resolve(img.naturalWidth);
+            else img.addEventListener("load", () => resolve(img.naturalWidth), { once: true });
+          }),
+      );
       expect(natural).toBe(24);
       await page.getByTestId("photo-close").click();
       await page.getByTestId("photo-full").waitFor({ state: "hidden" });
@@ -110,9 +117,23 @@ describe("case log", () => {
 
       // Found again months later: typed as "dichloromethane", searched as "DCM".
       await page.getByTestId("case-back").click();
+      await page.getByTestId("cases-count").getByText(/^\d+ cases?$/).waitFor();
+      const everything = await page.getByTestId("cases-count").innerText();
       await page.getByTestId("cases-search").fill("DCM");
+      // Wait for the search to replace the full list (the box waits a moment before asking).
+      await page.waitForFunction(
+        (before) => {
+          const t = document.querySelector('[data-testid="cases-count"]')?.textContent ?? "";
+          return /^\d+ cases?( · best match first)?$/.test(t) && t !== before;
+        },
+        everything,
+      );
       await page.getByTestId(`case-card-${caseId}`).waitFor();
       expect(await page.getByTestId(`case-card-${caseId}`).innerText()).toMatch(/brine/i);
+      // Every hit has dichloromethane in its system, whatever name it was logged under.
+      const cards = await page.locator('[data-testid^="case-card-"]').allInnerTexts();
+      expect(cards.length).toBeGreaterThan(0);
+      for (const text of cards) expect(text).toMatch(/Dichloromethane/);
       await shot(page, "cases-list-phone");
 
       // Filters combine with the search; nothing matching says what to try.
