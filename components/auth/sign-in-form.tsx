@@ -64,6 +64,11 @@ export function SignInForm({ onSignedIn }: { onSignedIn?: () => void }) {
         </Notice>
       ) : null}
       <Button label="Sign in" onPress={submit} busy={busy} testID="sign-in-submit" />
+      <Link href="/forgot-password" testID="forgot-password-link">
+        <Text bold tone="brand">
+          Forgot password?
+        </Text>
+      </Link>
       <Text tone="inkMuted">
         New here?{" "}
         <Link href="/sign-up">

@@ -1,0 +1,5 @@
+import { InviteScreen } from "../../components/auth/invite-screen";
+
+export default function Invite() {
+  return <InviteScreen />;
+}
