@@ -43,8 +43,8 @@ export const soluteComparisonQuery = (key: string) =>
     staleTime: STALE.reference,
   });
 
-export function useOverridesQuery(status: OverrideStatus) {
-  return useQuery(overrideListQuery(status));
+export function useOverridesQuery(status: OverrideStatus, enabled = true) {
+  return useQuery({ ...overrideListQuery(status), enabled });
 }
 
 /** Shipped and group values of one solvent; pass null to wait. */

@@ -1,9 +1,9 @@
 import { and, asc, eq, isNull } from "drizzle-orm";
 import type { Database } from "../db/client";
 import { member, referenceOverrides } from "../db/schema";
-import { applyOverrides, type ReferenceOverride } from "../knowledge/overrides";
+import { applyCorrections } from "../knowledge/contracts/reference-overrides";
 import { SHIPPED_REFERENCE } from "../knowledge/reference";
-import { KnowledgeInputError, type ReferenceData } from "../knowledge/types";
+import type { ReferenceData } from "../knowledge/types";
 import type { DbOrTx } from "./audit";
 
 /*
@@ -45,31 +45,13 @@ export async function activeOverrides(db: DbOrTx, groupId: string) {
     .orderBy(asc(referenceOverrides.createdAt), asc(referenceOverrides.id));
 }
 
-/**
- * Applies corrections one at a time so that one that no longer fits the shipped tables (its
- * solvent was renamed, say) is reported and skipped instead of breaking every computation.
- */
-export function applyEach(base: ReferenceData, rows: { id: string; payload: ReferenceOverride }[]) {
-  let ref = base;
-  const skipped: SkippedOverride[] = [];
-  for (const row of rows) {
-    try {
-      ref = applyOverrides(ref, [row.payload]);
-    } catch (err) {
-      if (!(err instanceof KnowledgeInputError)) throw err;
-      skipped.push({ id: row.id, message: err.message });
-    }
-  }
-  return { ref, skipped };
-}
-
 async function load(db: Database, groupId: string): Promise<CacheEntry> {
   const rows = await activeOverrides(db, groupId);
   const fingerprint = rows.map((r) => r.id).join(",");
   const cache = cacheOf(db);
   const hit = cache.get(groupId);
   if (hit && hit.fingerprint === fingerprint) return hit;
-  const entry: CacheEntry = rows.length === 0 ? { fingerprint, ref: SHIPPED_REFERENCE, skipped: [] } : { fingerprint, ...applyEach(SHIPPED_REFERENCE, rows) };
+  const entry: CacheEntry = rows.length === 0 ? { fingerprint, ref: SHIPPED_REFERENCE, skipped: [] } : { fingerprint, ...applyCorrections(SHIPPED_REFERENCE, rows) };
   cache.set(groupId, entry);
   return entry;
 }

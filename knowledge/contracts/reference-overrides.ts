@@ -1,5 +1,6 @@
 import { z } from "zod";
-import type { ReferenceOverride, SolventValueField } from "../overrides";
+import { applyOverrides, type ReferenceOverride, type SolventValueField } from "../overrides";
+import { KnowledgeInputError, type ReferenceData } from "../types";
 import type { ResolvedValue, SolventDetail } from "./solvents";
 
 /*
@@ -146,4 +147,23 @@ export function overrideSubject(o: CreateOverrideBody | ReferenceOverride): stri
     case "solvent-new":
       return `solvent-new:${o.solvent.key}`;
   }
+}
+
+/**
+ * Applies a group's corrections one at a time, so one that no longer fits the tables (its
+ * solvent was renamed, say) is reported and skipped instead of breaking every computation.
+ * Used by the server for each request and by the client for computations it runs itself.
+ */
+export function applyCorrections(base: ReferenceData, rows: { id: string; payload: ReferenceOverride }[]) {
+  let ref = base;
+  const skipped: { id: string; message: string }[] = [];
+  for (const row of rows) {
+    try {
+      ref = applyOverrides(ref, [row.payload]);
+    } catch (err) {
+      if (!(err instanceof KnowledgeInputError)) throw err;
+      skipped.push({ id: row.id, message: err.message });
+    }
+  }
+  return { ref, skipped };
 }
