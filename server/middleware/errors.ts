@@ -80,6 +80,12 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
     res.status(413).json({ error: { code: "too_large", message: "The request body is too large." } });
     return;
   }
+  // PostgreSQL stores no NUL character (SQLSTATE 22021/22P05): such input is the sender's, a 400.
+  const sqlState = (err as { cause?: MaybeCoded })?.cause?.code ?? coded?.code;
+  if (sqlState === "22021" || sqlState === "22P05") {
+    res.status(400).json({ error: { code: "bad_request", message: "The request contains a character that cannot be stored (a NUL byte)." } });
+    return;
+  }
   const status = coded?.status ?? coded?.statusCode;
   if (typeof status === "number" && status >= 400 && status < 500) {
     res.status(status).json({ error: { code: "bad_request", message: (err as Error).message } });

@@ -1,0 +1,134 @@
+import path from "node:path";
+import autocannon from "autocannon";
+import { ROOT, startChild } from "./child";
+
+/** What one route does under load. */
+export interface LoadFigure {
+  route: string;
+  requestsPerSec: number;
+  p50Ms: number;
+  p99Ms: number;
+  non2xx: number;
+  errors: number;
+}
+
+export interface ComputeApiReport {
+  connections: number;
+  durationS: number;
+  /** mean of the bare route measured before and after the app's routes */
+  bare: LoadFigure;
+  bareRuns: LoadFigure[];
+  routes: (LoadFigure & { throughputRatio: number; registered: boolean })[];
+}
+
+/** A DCM / 10 % brine layer check (CRC values in tests/api/layers.test.ts). */
+export const LAYER_BODY = {
+  organic: [{ solvent: "dichloromethane", volumeMl: 40 }],
+  aqueous: { solute: "NaCl", concentration: { value: 10, unit: "%w/w" }, volumeMl: 20 },
+  temperatureC: 20,
+};
+
+/** A three-wash plan of a fictional work-up (the shape tests/api/plans.test.ts uses). */
+export const PLAN_BODY = {
+  organic: { solvent: "EtOAc", volumeMl: 60 },
+  components: [
+    { name: "tolyl amine", kind: "base", pKa: 9.3, partitionCoefficient: 30, amountMmol: 2.5 },
+    { name: "heptanoic acid", kind: "acid", pKa: 4.9, partitionCoefficient: 200, amountMmol: 1.5 },
+    { name: "ketone product", kind: "neutral", partitionCoefficient: 8, amountMmol: 6 },
+  ],
+  washes: [
+    { aqueous: { solute: "HCl", concentration: { value: 1, unit: "mol/L" } }, volumeMl: 25, repeats: 2 },
+    { aqueous: { solute: "sat. sodium bicarbonate", concentration: "saturated" }, volumeMl: 25 },
+    { aqueous: { solute: "brine", concentration: "saturated" }, volumeMl: 25 },
+  ],
+  temperatureC: 20,
+};
+
+async function load(url: string, body: unknown, connections: number, durationS: number): Promise<LoadFigure> {
+  const r = await autocannon({
+    url,
+    connections,
+    duration: durationS,
+    method: "POST",
+    headers: { "content-type": "application/json" },
+    body: JSON.stringify(body),
+  });
+  return {
+    route: new URL(url).pathname,
+    requestsPerSec: r.requests.average,
+    p50Ms: r.latency.p50,
+    p99Ms: r.latency.p99,
+    non2xx: r.non2xx,
+    errors: r.errors + r.timeouts,
+  };
+}
+
+async function answers(url: string, body: unknown): Promise<number> {
+  const res = await fetch(url, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+  await res.arrayBuffer();
+  return res.status;
+}
+
+/**
+ * Throughput and latency of the compute routes at `connections` connections, each against a bare
+ * Express JSON route served by a child started the same way (node --import tsx, one process).
+ * The bare route runs before and after, and its mean is the baseline, because this machine is shared.
+ */
+export async function benchComputeApi(opts: { connections: number; durationS: number }): Promise<ComputeApiReport> {
+  const { connections, durationS } = opts;
+  const ready = /READY (\d+)/;
+  const bareRuns: LoadFigure[] = [];
+  const measureBare = async () => {
+    const { child, match } = await startChild(path.join(ROOT, "bench/servers/bare-server.ts"), { ready });
+    try {
+      const url = `http://127.0.0.1:${match[1]}/bare`;
+      await load(url, LAYER_BODY, connections, Math.min(2, durationS)); // warm-up
+      bareRuns.push(await load(url, LAYER_BODY, connections, durationS));
+    } finally {
+      await child.stop();
+    }
+  };
+
+  await measureBare();
+  const { child, match } = await startChild(path.join(ROOT, "bench/servers/app-server.ts"), { ready });
+  const measured: { figure: LoadFigure; registered: boolean }[] = [];
+  try {
+    for (const [route, body] of [
+      ["/api/layers/predict", LAYER_BODY],
+      ["/api/plans/compute", PLAN_BODY],
+    ] as const) {
+      const url = `http://127.0.0.1:${match[1]}${route}`;
+      const status = await answers(url, body);
+      if (status !== 200) {
+        measured.push({ figure: { route, requestsPerSec: 0, p50Ms: 0, p99Ms: 0, non2xx: 0, errors: 0 }, registered: false });
+        continue;
+      }
+      await load(url, body, connections, Math.min(2, durationS));
+      measured.push({ figure: await load(url, body, connections, durationS), registered: true });
+    }
+  } finally {
+    await child.stop();
+  }
+  await measureBare();
+
+  const mean = (f: (x: LoadFigure) => number) => bareRuns.reduce((a, x) => a + f(x), 0) / bareRuns.length;
+  const bare: LoadFigure = {
+    route: "/bare",
+    requestsPerSec: mean((x) => x.requestsPerSec),
+    p50Ms: mean((x) => x.p50Ms),
+    p99Ms: mean((x) => x.p99Ms),
+    non2xx: bareRuns.reduce((a, x) => a + x.non2xx, 0),
+    errors: bareRuns.reduce((a, x) => a + x.errors, 0),
+  };
+  return {
+    connections,
+    durationS,
+    bare,
+    bareRuns,
+    routes: measured.map(({ figure, registered }) => ({
+      ...figure,
+      registered,
+      throughputRatio: registered ? figure.requestsPerSec / bare.requestsPerSec : 0,
+    })),
+  };
+}
