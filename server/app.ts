@@ -21,6 +21,7 @@ import { invitationsRouter } from "./routes/invitations";
 import { digestRouter } from "./routes/digest";
 import { devOutboxRouter } from "./routes/dev-outbox";
 import { groupsRouter } from "./routes/groups";
+import { emulsionRouter } from "./routes/emulsion";
 import { healthRouter } from "./routes/health";
 import { evaporationRouter } from "./routes/evaporation";
 import { plansRouter } from "./routes/plans";
@@ -47,7 +48,7 @@ export interface CreateAppOptions {
 }
 
 /** Each area adds its router here (one line). Routers mount under /api. */
-const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, auditRouter, casesRouter, photosRouter, referenceRouter, plansRouter, evaporationRouter, solventChoiceRouter, adviceRouter, curationRouter, insightRouter, invitationsRouter, digestRouter, devOutboxRouter, backupRouter];
+const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, emulsionRouter, auditRouter, casesRouter, photosRouter, referenceRouter, plansRouter, evaporationRouter, solventChoiceRouter, adviceRouter, curationRouter, insightRouter, invitationsRouter, digestRouter, devOutboxRouter, backupRouter];
 
 export function createApp(options: CreateAppOptions) {
   const baseURL = options.baseURL ?? "http://localhost:3000";
