@@ -55,6 +55,67 @@ export function editDistance(a: string, b: string): number {
   return d[a.length]![b.length]!;
 }
 
+/** "NaHSO3", "KHSO4", "CH2Cl2": formulae are matched exactly, never corrected (NaHSO3 is not NaHCO3). */
+export function looksLikeFormula(raw: string): boolean {
+  return /^(?:[A-Z][a-z]?\d*|\((?:[A-Z][a-z]?\d*)+\)\d*)+$/.test(raw) && (raw.match(/[A-Z]/g) ?? []).length >= 2;
+}
+
+const ALKYL_STEMS = ["meth", "eth", "prop", "but", "pent", "hex", "hept", "oct", "non", "dec"];
+const MULTIPLIERS = ["tetra", "tri", "di", "iso", "cyclo", "tert", "sec"];
+const ENDINGS = ["anol", "ol", "ane", "ene", "yne", "ate", "ite", "ide", "one", "al", "ine", "ile"];
+
+function stemOf(token: string): string | undefined {
+  let t = token;
+  for (const m of MULTIPLIERS) if (t.startsWith(m) && t.length > m.length + 2) t = t.slice(m.length);
+  return ALKYL_STEMS.find((s) => t.startsWith(s));
+}
+
+function endingOf(token: string): string | undefined {
+  const singular = token.length > 5 && token.endsWith("s") ? token.slice(0, -1) : token;
+  const e = ENDINGS.find((x) => singular.endsWith(x));
+  return e === "anol" ? "ol" : e;
+}
+
+const digitsOf = (text: string) => (text.match(/\d/g) ?? []).join("");
+const tokensOf = (text: string) => normaliseTokens(text);
+
+function normaliseTokens(text: string): string[] {
+  return text
+    .normalize("NFKD")
+    .replace(/[\u0300-\u036f]/g, "")
+    .toLowerCase()
+    .split(/[^a-z0-9]+/)
+    .filter(Boolean);
+}
+
+/**
+ * A typing slip may be corrected; a different compound may not. Refuses a fuzzy match that would
+ * change a locant or other digit (1- vs 2-butanol), an alkyl stem (methyl vs ethyl acetate), a
+ * functional ending (pentanol vs pentane, chlorite vs chloride), a one-letter prefix (p- vs o-xylene),
+ * or a word by more than that word's own typo allowance (hydride vs hydroxide).
+ */
+export function sameCompoundShape(query: string, candidate: string): boolean {
+  if (digitsOf(query) !== digitsOf(candidate)) return false;
+  const a = tokensOf(query);
+  const b = tokensOf(candidate);
+  const letters = (t: string[]) => t.filter((x) => x.length === 1).sort().join();
+  if (letters(a) !== letters(b)) return false;
+  const pairs: [string, string][] =
+    a.length === b.length ? a.map((t, i) => [t, b[i]!]) : [[a.join(""), b.join("")]];
+  for (const [x, y] of pairs) {
+    if (x === y) continue;
+    if (x.length <= 1 || y.length <= 1) return false;
+    const sx = stemOf(x);
+    const sy = stemOf(y);
+    if (sx && sy && sx !== sy) return false;
+    const ex = endingOf(x);
+    const ey = endingOf(y);
+    if (ex && ey && ex !== ey) return false;
+    if (a.length === b.length && editDistance(x, y) > allowedTypos(x.length)) return false;
+  }
+  return true;
+}
+
 function buildIndex<T extends Named>(items: T[]): Index<T> {
   const exact = new Map<string, T>();
   const formula = new Map<string, T[]>();
@@ -114,9 +175,15 @@ function find<T extends Named>(idx: Index<T>, query: string): T | undefined {
   // and strictly closer than every other entry (DCM vs DCE must never be a coin toss).
   const allowed = allowedTypos(q.length);
   if (allowed === 0) return undefined;
+  if (looksLikeFormula(String(query).trim())) return undefined;
   const scored = idx.fuse
     .search(String(query).trim(), { limit: 8 })
-    .map((r) => ({ item: r.item.item, distance: Math.min(...r.item.normal.map((n) => editDistance(q, n))) }))
+    .map((r) => {
+      const distances = r.item.names
+        .map((name, i) => ({ name, d: editDistance(q, r.item.normal[i]!) }))
+        .filter((x) => sameCompoundShape(String(query), x.name));
+      return { item: r.item.item, distance: distances.length ? Math.min(...distances.map((x) => x.d)) : Infinity };
+    })
     .sort((a, b) => a.distance - b.distance);
   const best = scored[0];
   if (!best || best.distance > allowed) return undefined;
