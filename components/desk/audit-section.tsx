@@ -1,6 +1,9 @@
 import { useState } from "react";
 import { StyleSheet, View } from "react-native";
 import type { AuditEntry } from "../../knowledge/contracts/audit";
+import { SOLVENT_VALUE_FIELDS } from "../../knowledge/contracts/reference-overrides";
+import type { SolventValueField } from "../../knowledge/overrides";
+import { SHIPPED_REFERENCE } from "../../knowledge/reference";
 import { ApiError } from "../../hooks/api";
 import { colors, radii, space } from "../../hooks/theme";
 import { useAuditQuery, useAuditRestoreMutation, type AuditFilters } from "../../hooks/use-audit";
@@ -13,9 +16,18 @@ import { Empty, ErrorState, Loading } from "../ui/states";
 import { Text } from "../ui/text";
 import { DataTable, type Column } from "./data-table";
 import type { DeskSectionProps } from "./desk-sections";
-import { actionLabel, changesBetween, formatWhen } from "./format";
+import { actionLabel, changesBetween, entityLabel, formatWhen, recordLabel } from "./format";
 
 const PAGE = 50;
+
+/** A solvent's or solution's name, or a correctable value's label, for the Record column. */
+function referenceName(key: string): string | undefined {
+  return (
+    SHIPPED_REFERENCE.solvents.find((s) => s.key === key)?.name ??
+    SHIPPED_REFERENCE.solutes.find((s) => s.key === key)?.name ??
+    (key in SOLVENT_VALUE_FIELDS ? SOLVENT_VALUE_FIELDS[key as SolventValueField].label : undefined)
+  );
+}
 const ALL = "__all__";
 const DATE = /^\d{4}-\d{2}-\d{2}$/;
 
@@ -96,9 +108,9 @@ const COLUMNS: Column<AuditEntry>[] = [
     sortValue: (e) => `${e.entityType} ${e.entityId}`,
     render: (e) => (
       <View>
-        <Text>{e.entityType}</Text>
+        <Text>{entityLabel(e.entityType)}</Text>
         <Text size="caption" tone="inkMuted" numberOfLines={2}>
-          {e.entityId}
+          {recordLabel(e, referenceName)}
         </Text>
       </View>
     ),
@@ -141,7 +153,7 @@ export function AuditSection({ canAct }: DeskSectionProps) {
         </Text>
         <FilterChips
           label="Kind of record"
-          options={(facets?.entityTypes ?? []).map((t) => ({ value: t, label: t }))}
+          options={(facets?.entityTypes ?? []).map((t) => ({ value: t, label: entityLabel(t) }))}
           value={filters.entity}
           onChange={(entity) => set({ entity })}
           testID="audit-entity"
@@ -168,7 +180,7 @@ export function AuditSection({ canAct }: DeskSectionProps) {
               onChangeText={setFrom}
               onBlur={() => !dateError(from) && set({ from: from || undefined })}
               onSubmitEditing={() => !dateError(from) && set({ from: from || undefined })}
-              placeholder="2025-03-01"
+              help="A day as YYYY-MM-DD."
               error={dateError(from)}
               testID="audit-from"
             />
@@ -180,7 +192,7 @@ export function AuditSection({ canAct }: DeskSectionProps) {
               onChangeText={setTo}
               onBlur={() => !dateError(to) && set({ to: to || undefined })}
               onSubmitEditing={() => !dateError(to) && set({ to: to || undefined })}
-              placeholder="2025-03-31"
+              help="A day as YYYY-MM-DD; the whole day counts."
               error={dateError(to)}
               testID="audit-to"
             />

@@ -86,9 +86,11 @@ export function DataTable<T>({ label, rows, columns, rowKey, initialSort, below,
                   </Text>
                 </Pressable>
               ) : (
-                <Text bold size="label">
-                  {c.title}
-                </Text>
+                <View style={styles.sortButton}>
+                  <Text bold size="label">
+                    {c.title}
+                  </Text>
+                </View>
               )}
             </View>
           );

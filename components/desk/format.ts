@@ -31,6 +31,31 @@ export function actionLabel(action: string): string {
   return words.charAt(0).toUpperCase() + words.slice(1);
 }
 
+const ENTITY_WORDS: Record<string, string> = {
+  "reference-override": "Reference correction",
+  invitation: "Invitation",
+};
+
+/** A readable name for an audit entry's kind of record. */
+export function entityLabel(entityType: string): string {
+  return ENTITY_WORDS[entityType] ?? actionLabel(entityType);
+}
+
+/**
+ * What the entry is about, in words: "dichloromethane · densityGPerMl20C" becomes the
+ * solvent's name and the value's label for a correction; an invitation shows its address.
+ */
+export function recordLabel(entry: { entityType: string; entityId: string; before: unknown; after: unknown }, names: (key: string) => string | undefined): string {
+  const snap = (entry.after ?? entry.before) as { email?: string } | null;
+  if (entry.entityType === "invitation" && snap?.email) return snap.email;
+  if (entry.entityType === "reference-override") {
+    const [kind, key = "", detail = ""] = entry.entityId.split(":");
+    const name = names(key) ?? key;
+    return kind === "aqueous-point" ? `${name} · ${detail} % w/w` : `${name} · ${names(detail) ?? detail}`;
+  }
+  return entry.entityId;
+}
+
 /** A number with as many decimals as its field shows. */
 export function formatValue(value: number | null, decimals: number, unit: string): string {
   if (value === null) return "none";

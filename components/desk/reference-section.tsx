@@ -63,6 +63,8 @@ function parseNumber(text: string): number | undefined {
   return m ? Number(m[0]) : undefined;
 }
 
+const lowerFirst = (s: string) => s.charAt(0).toLowerCase() + s.slice(1);
+
 function decimalsOf(o: Pick<OverrideView, "kind" | "payload">): number {
   return o.payload.kind === "solvent-value" ? SOLVENT_VALUE_FIELDS[o.payload.field].decimals : 4;
 }
@@ -229,8 +231,10 @@ function AddCorrection({ userId }: { userId: string }) {
       {err && !err.fields ? <Notice tone="danger">{err.message}</Notice> : null}
       {create.data && !create.isPending ? (
         <Notice tone="good" testID="correction-saved">
-          Saved: {create.data.targetName}, {create.data.label.toLowerCase()} = {formatValue(create.data.group.value, decimalsOf(create.data), create.data.unit)} for the
-          group (shipped {formatValue(create.data.shipped.value, decimalsOf(create.data), create.data.unit)}).
+          <Text>
+            Saved: {create.data.targetName}, {lowerFirst(create.data.label)} = {formatValue(create.data.group.value, decimalsOf(create.data), create.data.unit)} for the group
+            (shipped {formatValue(create.data.shipped.value, decimalsOf(create.data), create.data.unit)}).
+          </Text>
         </Notice>
       ) : null}
       <Button label="Save correction" busy={create.isPending} onPress={submit} testID="correction-save" />
