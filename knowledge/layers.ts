@@ -90,6 +90,10 @@ export const VERY_LOW_FLASH_POINT_C = -18;
 export const CONFIRM_BY_DROP_TEST =
   "Confirm before draining: add a few drops of water and watch which layer they join (that is the aqueous layer). Keep both layers until the product is found.";
 
+/** With one phase there is no layer to test; say what to do if a second layer appears anyway. */
+export const CONFIRM_ONE_PHASE =
+  "Expect no split. If a second layer does form (salting out, cold), treat it as unknown: drop-test it and keep everything until the product is found.";
+
 const SALTS_THAT_SALT_OUT = new Set(["sodium-chloride", "potassium-carbonate", "sodium-carbonate", "ammonium-chloride", "calcium-chloride", "lithium-chloride"]);
 const GAS_FORMING_BASES = new Set(["sodium-bicarbonate", "sodium-carbonate", "potassium-carbonate"]);
 const STRONG_ACIDS_AND_BASES = new Set(["sodium-hydroxide", "potassium-hydroxide", "hydrochloric-acid", "sulfuric-acid"]);
@@ -347,7 +351,7 @@ export function predictLayers(input: LayerInput, ref: ReferenceData = SHIPPED_RE
     warn("gas-evolution", `${solute.name} releases CO2 with any acid present: swirl before stoppering and vent after every inversion.`);
   }
   if (STRONG_ACIDS_AND_BASES.has(solute.key) && massFractionPct >= 10) {
-    warn("corrosive-aqueous", `${r1(massFractionPct)} % w/w ${solute.name} is corrosive and can warm on mixing: wear eye protection and gloves; follow the SDS.`);
+    warn("corrosive-aqueous", `${r1(massFractionPct)} % w/w ${solute.name.toLowerCase()} is corrosive and can warm on mixing: wear eye protection and gloves; follow the SDS.`);
   }
 
   const aqueousVolumeMl = input.aqueous.volumeMl;
@@ -366,7 +370,7 @@ export function predictLayers(input: LayerInput, ref: ReferenceData = SHIPPED_RE
     warnings,
     assumptions,
     sources: [...sources],
-    ...(confidence === "clear" ? {} : { confirm: CONFIRM_BY_DROP_TEST }),
+    ...(confidence === "clear" ? {} : { confirm: confidence === "one-phase" ? CONFIRM_ONE_PHASE : CONFIRM_BY_DROP_TEST }),
     organicParts,
     aqueous: { key: solute.key, name: solute.name, massFractionPct, densityGPerMl: aqueousDensity },
   };

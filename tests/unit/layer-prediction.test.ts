@@ -1,6 +1,7 @@
 import {
   CLEAR_DENSITY_DIFFERENCE_G_PER_ML,
   CONFIRM_BY_DROP_TEST,
+  CONFIRM_ONE_PHASE,
   TOO_CLOSE_DENSITY_DIFFERENCE_G_PER_ML,
   mixOrganic,
   predictLayers,
@@ -130,7 +131,7 @@ describe("predictLayers: water-miscible solvents", () => {
     expect(p.bottom).toBeNull();
     expect(p.confidence).toBe("one-phase");
     expect(p.warnings.map((w) => w.code)).toContain("one-phase");
-    expect(p.confirm).toBe(CONFIRM_BY_DROP_TEST);
+    expect(p.confirm).toBe(CONFIRM_ONE_PHASE);
   });
 
   it("warns that saturated brine can salt out a THF-rich layer", () => {
