@@ -12,6 +12,7 @@ export interface NavItem {
 export const NAV_ITEMS: NavItem[] = [
   { href: "/", label: "Home", icon: "home", match: "/" },
   { href: "/layers", label: "Layers", icon: "layers", match: "/layers" },
+  { href: "/emulsion", label: "Emulsion", icon: "emulsion", match: "/emulsion" },
   { href: "/group", label: "Group", icon: "group", match: "/group" },
   { href: "/cases", label: "Cases", icon: "cases", match: "/cases" },
   { href: "/solvents", label: "Solvents", icon: "solvents", match: "/solvents" },

@@ -1,0 +1,3 @@
+import { EmulsionScreen } from "../../../components/emulsion/emulsion-screen";
+
+export default EmulsionScreen;
