@@ -81,8 +81,3 @@ export function splitRemedies(answer: TroubleshootResponse): RankedCards {
 export function evidenceText(e: { cleared: number; tried: number }): string {
   return `Cleared ${e.cleared} of ${e.tried} in this group`;
 }
-
-export function riskLevel(r: RemedyAnswer): "low" | "some" | "take care" {
-  if (r.cautions.length > 0) return "take care";
-  return r.risks.length > 2 ? "some" : "low";
-}
