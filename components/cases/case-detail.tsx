@@ -8,11 +8,11 @@ import { Button } from "../ui/button";
 import { Card } from "../ui/card";
 import { Notice } from "../ui/notice";
 import { Text } from "../ui/text";
+import { CaseCurationNotes } from "../desk/case-requests";
 import { AddAttempt, AttemptTimeline } from "./attempts";
 import { CaseEdit } from "./case-edit";
 import { aqueousLine, formatDate, formatDateTime, formatMinutes, organicLine } from "./format";
-import { bandColumns } from "./layer-preview";
-import { PhaseBands } from "./phase-bands";
+import { LayerOrder } from "./layer-order";
 import { PhotoGrid, PickButtons, UploadRow, type PickedPhoto } from "./photos";
 import { Pill, StatusPill } from "./pill";
 import { causeLabel, KIND, OUTCOME, tagLabel } from "./vocab";
@@ -148,6 +148,7 @@ export function CaseDetailView({ detail, userId, onOpenCase }: { detail: CaseDet
         </Text>
       </View>
 
+      <CaseCurationNotes detail={detail} userId={userId} />
       <Outcome detail={detail} />
       <View style={styles.actions}>
         <FollowButton detail={detail} />
@@ -182,10 +183,7 @@ export function CaseDetailView({ detail, userId, onOpenCase }: { detail: CaseDet
             {detail.system.scale?.productG ? ` · ${detail.system.scale.productG} g product` : ""}
           </Text>
         </View>
-        <PhaseBands
-          columns={bandColumns(p, detail.observedBottom, { organicMl, aqueousMl: detail.system.aqueous.volumeMl }, detail.seen.emulsionFractionPct ? detail.seen.emulsionFractionPct / 100 : undefined)}
-          testID="case-bands"
-        />
+        <LayerOrder predicted={p} observedBottom={detail.observedBottom} organicMl={organicMl} aqueousMl={detail.system.aqueous.volumeMl} testID="case-layers" />
         {p ? (
           <Text size="caption" tone="inkMuted">
             Densities {p.organicDensityGPerMl.toFixed(3)} (organic) vs {p.aqueousDensityGPerMl.toFixed(3)} g/mL (aqueous), difference {p.densityDifferenceGPerMl.toFixed(3)} · ideal mixing assumed

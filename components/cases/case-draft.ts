@@ -10,8 +10,9 @@ import {
   type EmulsionKind,
   type ShakingLevel,
 } from "../../knowledge/contracts/cases";
-import type { Concentration } from "../../knowledge/types";
+import { findSolute, findSolvent } from "../../knowledge/reference";
 import { KnowledgeInputError } from "../../knowledge/types";
+import { formatConcentration, inSentence } from "./format";
 
 /*
  * The forms hold what the chemist typed (strings, so "0.5 L" and "sat." survive a reload) and
@@ -23,8 +24,9 @@ export type SeenFlag = "solids" | "thirdLayer" | "cloudyOrganic" | "foamOrBubble
 
 export interface CaseDraftValue {
   title: string;
-  organic: { solvent: string; volume: string }[];
-  aqueous: { solute: string; concentration: string; volume: string; ph: string };
+  /** `solvent` holds a table key once picked, or the name as typed when `freeText` */
+  organic: { solvent: string; volume: string; freeText?: boolean }[];
+  aqueous: { solute: string; concentration: string; volume: string; ph: string; freeText?: boolean };
   temperature: string;
   observedBottom: CasePhase | null;
   kind: EmulsionKind | null;
@@ -50,7 +52,7 @@ export function emptyCaseDraft(): CaseDraftValue {
     title: "",
     organic: [{ solvent: "", volume: "" }],
     aqueous: { solute: "", concentration: "", volume: "", ph: "" },
-    temperature: String(DEFAULT_TEMPERATURE_C),
+    temperature: `${DEFAULT_TEMPERATURE_C} °C`,
     observedBottom: null,
     kind: null,
     emulsionPct: "",
@@ -67,12 +69,6 @@ export function emptyCaseDraft(): CaseDraftValue {
   };
 }
 
-export function formatConcentration(c: Concentration | undefined): string {
-  if (!c) return "";
-  if (c === "saturated") return "saturated";
-  const unit = c.unit === "mol/L" ? "M" : c.unit === "%w/w" ? "%" : "g/L";
-  return `${c.value} ${unit}`;
-}
 
 const FLAG_KEYS: SeenFlag[] = ["solids", "thirdLayer", "cloudyOrganic", "foamOrBubbles"];
 
@@ -80,11 +76,18 @@ const FLAG_KEYS: SeenFlag[] = ["solids", "thirdLayer", "cloudyOrganic", "foamOrB
 export function draftFromPrefill(p: CasePrefill): CaseDraftValue {
   const d = emptyCaseDraft();
   if (p.title) d.title = p.title;
-  if (p.organic?.length) d.organic = p.organic.map((o) => ({ solvent: o.solvent, volume: String(o.volumeMl) }));
+  // A linked name the tables do not know stays as typed (free text) rather than being dropped.
+  if (p.organic?.length) d.organic = p.organic.map((o) => ({ solvent: o.solvent, volume: `${o.volumeMl} mL`, freeText: !findSolvent(o.solvent) }));
   if (p.aqueous) {
-    d.aqueous = { solute: p.aqueous.solute, concentration: formatConcentration(p.aqueous.concentration), volume: String(p.aqueous.volumeMl), ph: "" };
+    d.aqueous = {
+      solute: p.aqueous.solute,
+      concentration: formatConcentration(p.aqueous.concentration),
+      volume: `${p.aqueous.volumeMl} mL`,
+      ph: "",
+      freeText: !findSolute(p.aqueous.solute),
+    };
   }
-  if (p.temperatureC !== undefined) d.temperature = String(p.temperatureC);
+  if (p.temperatureC !== undefined) d.temperature = `${p.temperatureC} °C`;
   if (p.seen) {
     if (p.seen.emulsionFractionPct !== undefined) d.emulsionPct = String(p.seen.emulsionFractionPct);
     if (p.seen.colour) d.colour = p.seen.colour;
@@ -119,14 +122,19 @@ function parsed<T>(fn: () => T, field: string, errors: FieldErrors): T | undefin
   }
 }
 
-/** A title when the chemist gives none: "Ethyl acetate over saturated sodium bicarbonate". */
+/** A title when the chemist gives none: "Emulsion: ethyl acetate over saturated sodium bicarbonate". */
 export function suggestedTitle(d: CaseDraftValue): string {
-  const solvents = d.organic.map((o) => o.solvent.trim()).filter(Boolean);
-  const aq = [d.aqueous.concentration.trim(), d.aqueous.solute.trim()].filter(Boolean).join(" ");
+  const name = (text: string, find: (t: string) => { name: string } | undefined) => {
+    const t = text.trim();
+    return t ? inSentence(find(t)?.name ?? t) : "";
+  };
+  const solvents = d.organic.map((o) => name(o.solvent, findSolvent)).filter(Boolean);
+  const aq = [d.aqueous.concentration.trim(), name(d.aqueous.solute, findSolute)].filter(Boolean).join(" ");
   if (!solvents.length && !aq) return "";
-  const head = solvents.join(" + ") || "Organic";
-  const what = d.kind && d.kind !== "none" ? "Emulsion: " : "";
-  return `${what}${head}${aq ? ` over ${aq}` : ""}`.slice(0, 140);
+  const head = solvents.join(" + ") || "organic";
+  const text = `${head}${aq ? ` over ${aq}` : ""}`;
+  const full = d.kind && d.kind !== "none" ? `Emulsion: ${text}` : text.charAt(0).toUpperCase() + text.slice(1);
+  return full.slice(0, 140);
 }
 
 function tagList(d: CaseDraftValue): string[] {

@@ -122,7 +122,7 @@ export function CasesScreen() {
         <View style={styles.countRow}>
           <Text size="label" tone="inkMuted" testID="cases-count" accessibilityLiveRegion="polite">
             {total === 1 ? "1 case" : `${total} cases`}
-            {list.isFetching ? " · updating…" : shownSort.sort === "relevance" ? " · best match first" : ""}
+            {list.isFetching || list.isPlaceholderData ? " · updating…" : query.q && !sort ? " · best match first" : ""}
           </Text>
           <ExportLink filters={query} />
         </View>

@@ -1,43 +1,11 @@
-import { Pressable, ScrollView, StyleSheet, View } from "react-native";
+import { Pressable, StyleSheet, View } from "react-native";
 import { colors, radii, space, TOUCH_MIN } from "../../hooks/theme";
+import { Chips } from "../ui/chips";
 import { Text } from "../ui/text";
 
 export interface Choice<V extends string> {
   value: V;
   label: string;
-}
-
-/** One large tap target that is on or off. */
-export function Chip({
-  label,
-  on,
-  onPress,
-  role = "button",
-  shape = "pill",
-  testID,
-}: {
-  label: string;
-  on: boolean;
-  onPress: () => void;
-  role?: "button" | "radio" | "checkbox";
-  shape?: "pill" | "square";
-  testID?: string;
-}) {
-  const state = role === "button" ? { selected: on } : { checked: on };
-  return (
-    <Pressable
-      accessibilityRole={role}
-      accessibilityState={state}
-      accessibilityLabel={label}
-      testID={testID}
-      onPress={onPress}
-      style={[styles.chip, shape === "square" && styles.square, on && styles.chipOn]}
-    >
-      <Text size="label" bold={on} tone={on ? "brandInk" : "ink"}>
-        {role === "checkbox" && on ? `✓ ${label}` : label}
-      </Text>
-    </Pressable>
-  );
 }
 
 interface Props<V extends string> {
@@ -50,41 +18,26 @@ interface Props<V extends string> {
   allowNone?: boolean;
   /** one line that scrolls sideways, for long lists on a phone */
   scroll?: boolean;
+  /** each chip gets `${testID}-${value}` */
   testID?: string;
 }
 
-/** A row of large tap targets for picking one of a few values (gloved hands, no dropdowns). */
+/** Pick one of a few values with large chips (gloved hands, no dropdowns); a second tap clears. */
 export function ChoiceChips<V extends string>({ label, choices, value, onChange, allowNone = true, scroll, testID }: Props<V>) {
-  const chips = choices.map((c) => {
-    const on = c.value === value;
-    return (
-      <Chip
-        key={c.value}
-        role="radio"
-        label={c.label}
-        on={on}
-        onPress={() => onChange(on && allowNone ? null : c.value)}
-        testID={testID ? `${testID}-${c.value}` : undefined}
-      />
-    );
-  });
   return (
-    <View style={styles.wrap} accessibilityRole="radiogroup" accessibilityLabel={label}>
-      <Text bold size="label">
-        {label}
-      </Text>
-      {scroll ? (
-        <ScrollView horizontal showsHorizontalScrollIndicator={false} contentContainerStyle={styles.line}>
-          {chips}
-        </ScrollView>
-      ) : (
-        <View style={styles.row}>{chips}</View>
-      )}
-    </View>
+    <Chips
+      label={label}
+      showLabel
+      options={choices}
+      selected={value ?? null}
+      onSelect={(v) => onChange(v === value && allowNone ? null : v)}
+      scroll={scroll}
+      testID={testID}
+    />
   );
 }
 
-/** Chips where several may be on at once (observations, tags). */
+/** Chips where several may be on at once (observations, tags, causes): each is a checkbox. */
 export function ToggleChips<V extends string>({
   label,
   choices,
@@ -107,14 +60,19 @@ export function ToggleChips<V extends string>({
         {choices.map((c) => {
           const on = values.includes(c.value);
           return (
-            <Chip
+            <Pressable
               key={c.value}
-              role="checkbox"
-              label={c.label}
-              on={on}
-              onPress={() => onChange(on ? values.filter((x) => x !== c.value) : [...values, c.value])}
+              accessibilityRole="checkbox"
+              accessibilityState={{ checked: on }}
+              accessibilityLabel={c.label}
               testID={testID ? `${testID}-${c.value}` : undefined}
-            />
+              onPress={() => onChange(on ? values.filter((x) => x !== c.value) : [...values, c.value])}
+              style={[styles.chip, on && styles.chipOn]}
+            >
+              <Text size="label" bold={on} tone={on ? "brandInk" : "ink"}>
+                {on ? `✓ ${c.label}` : c.label}
+              </Text>
+            </Pressable>
           );
         })}
       </View>
@@ -125,17 +83,16 @@ export function ToggleChips<V extends string>({
 const styles = StyleSheet.create({
   wrap: { gap: space.xs },
   row: { flexDirection: "row", flexWrap: "wrap", gap: space.sm },
-  line: { flexDirection: "row", gap: space.sm, paddingVertical: 2 },
+  // Square-cornered, unlike the single-choice pills, so "several allowed" reads at a glance.
   chip: {
     minHeight: TOUCH_MIN,
-    paddingHorizontal: space.lg,
-    borderRadius: radii.pill,
+    paddingHorizontal: space.md,
+    borderRadius: radii.sm,
     borderWidth: 2,
     borderColor: colors.line,
     backgroundColor: colors.surface,
     alignItems: "center",
     justifyContent: "center",
   },
-  square: { borderRadius: radii.md, paddingHorizontal: space.sm, minWidth: TOUCH_MIN },
   chipOn: { backgroundColor: colors.brand, borderColor: colors.brand },
 });

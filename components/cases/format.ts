@@ -1,11 +1,7 @@
 import type { CaseSystem } from "../../knowledge/contracts/cases";
-import { formatConcentration } from "./case-draft";
+import { formatVolumeMl } from "../ui/format";
+import type { Concentration } from "../../knowledge/types";
 
-/** Volumes in mL, in L from 1000 mL up (UX numbers and units). */
-export function formatVolume(ml: number): string {
-  if (ml >= 1000) return `${Number((ml / 1000).toFixed(2))} L`;
-  return `${Number(ml.toFixed(1))} mL`;
-}
 
 const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
 
@@ -38,7 +34,7 @@ export function inSentence(name: string): string {
 
 /** "50 mL dichloromethane + 10 mL methanol" */
 export function organicLine(system: CaseSystem): string {
-  return system.organic.map((o) => `${formatVolume(o.volumeMl)} ${inSentence(o.name || o.solvent)}`).join(" + ");
+  return system.organic.map((o) => `${formatVolumeMl(o.volumeMl)} ${inSentence(o.name || o.solvent)}`).join(" + ");
 }
 
 /** "50 mL saturated sodium bicarbonate, pH 8.3" */
@@ -46,5 +42,13 @@ export function aqueousLine(system: CaseSystem): string {
   const a = system.aqueous;
   const conc = formatConcentration(a.concentration);
   const ph = a.ph !== undefined ? `, pH ${a.ph.toFixed(1)}` : "";
-  return `${formatVolume(a.volumeMl)} ${conc ? `${conc} ` : ""}${inSentence(a.name || a.solute)}${ph}`;
+  return `${formatVolumeMl(a.volumeMl)} ${conc ? `${conc} ` : ""}${inSentence(a.name || a.solute)}${ph}`;
+}
+
+/** A concentration as a chemist types it ("1 M", "10 %", "saturated"), for form fields and lines. */
+export function formatConcentration(c: Concentration | undefined): string {
+  if (!c) return "";
+  if (c === "saturated") return "saturated";
+  const unit = c.unit === "mol/L" ? "M" : c.unit === "%w/w" ? "%" : "g/L";
+  return `${c.value} ${unit}`;
 }

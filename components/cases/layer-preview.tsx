@@ -1,11 +1,10 @@
 import { useMemo } from "react";
 import { View } from "react-native";
 import { parseConcentration, parseTemperatureC, parseVolumeMl } from "../../knowledge/concentration";
-import type { CasePhase } from "../../knowledge/contracts/cases";
 import { predictLayers, type LayerPrediction } from "../../knowledge/layers";
 import { Text } from "../ui/text";
 import type { CaseDraftValue } from "./case-draft";
-import { PhaseBands, type BandColumn } from "./phase-bands";
+import { LayerOrder } from "./layer-order";
 
 function tryOr<T>(fn: () => T): T | undefined {
   try {
@@ -25,24 +24,9 @@ export function predictFromDraft(d: CaseDraftValue): LayerPrediction | null {
   return tryOr(() => predictLayers({ organic, aqueous: { solute: d.aqueous.solute, volumeMl, ...(concentration ? { concentration } : {}) }, temperatureC })) ?? null;
 }
 
-const other = (p: CasePhase): CasePhase => (p === "organic" ? "aqueous" : "organic");
-
-export function bandColumns(
-  predicted: { top: CasePhase | null; bottom: CasePhase | null; phases: 1 | 2 } | null,
-  observedBottom: CasePhase | null,
-  volumes: { organicMl?: number; aqueousMl?: number },
-  middleFraction?: number,
-): BandColumn[] {
-  return [
-    { label: "Predicted", order: predicted && predicted.phases === 2 && predicted.top && predicted.bottom ? [predicted.top, predicted.bottom] : null, ...volumes },
-    { label: "Seen", order: observedBottom ? [other(observedBottom), observedBottom] : null, ...volumes, middleFraction },
-  ];
-}
-
 /** Live layer check inside the form: the prediction beside what the chemist says they see. */
 export function LayerPreview({ draft }: { draft: CaseDraftValue }) {
   const p = useMemo(() => predictFromDraft(draft), [draft]);
-  const pct = Number(draft.emulsionPct);
   return (
     <View testID="layer-preview">
       {p ? (
@@ -56,10 +40,9 @@ export function LayerPreview({ draft }: { draft: CaseDraftValue }) {
           The predicted layers appear once the solvents, the aqueous phase and their volumes are in.
         </Text>
       )}
-      <PhaseBands
-        columns={bandColumns(p, draft.observedBottom, { organicMl: p?.organicVolumeMl, aqueousMl: p?.aqueousVolumeMl }, Number.isFinite(pct) && pct > 0 ? pct / 100 : undefined)}
-        testID="form-bands"
-      />
+      {p ? (
+        <LayerOrder predicted={p} observedBottom={draft.observedBottom} organicMl={p.organicVolumeMl} aqueousMl={p.aqueousVolumeMl} testID="form-layers" />
+      ) : null}
     </View>
   );
 }

@@ -13,36 +13,34 @@ export interface BandColumn {
   /** volumes, to scale the bands; equal halves when absent */
   organicMl?: number;
   aqueousMl?: number;
-  /** a hatched band between the layers, e.g. an emulsion, as a share of the height */
-  middleFraction?: number;
 }
 
 const W = 64;
 const H = 120;
 const MIN_BAND = 0.15;
 
-function heights(c: BandColumn): { top: number; middle: number; bottom: number } {
-  const middle = Math.min(Math.max(c.middleFraction ?? 0, 0), 0.6) * H;
-  const rest = H - middle;
-  if (!c.order) return { top: rest / 2, middle, bottom: rest / 2 };
+function heights(c: BandColumn): { top: number; bottom: number } {
+  if (!c.order) return { top: H / 2, bottom: H / 2 };
   const vol = { organic: c.organicMl ?? 1, aqueous: c.aqueousMl ?? 1 };
   const total = vol.organic + vol.aqueous || 2;
   let topShare = vol[c.order[0]] / total;
   // Keep both bands readable however lopsided the volumes are.
   topShare = Math.min(Math.max(topShare, MIN_BAND), 1 - MIN_BAND);
-  return { top: rest * topShare, middle, bottom: rest * (1 - topShare) };
+  return { top: H * topShare, bottom: H * (1 - topShare) };
 }
 
 const PHASE_NAME: Record<BandPhase, string> = { organic: "organic", aqueous: "aqueous" };
 
 function describe(c: BandColumn): string {
   if (!c.order) return `${c.label}: not known`;
-  return `${c.label}: ${PHASE_NAME[c.order[0]]} on top, ${PHASE_NAME[c.order[1]]} below${c.middleFraction ? ", a cloudy band between" : ""}`;
+  return `${c.label}: ${PHASE_NAME[c.order[0]]} on top, ${PHASE_NAME[c.order[1]]} below`;
 }
 
-/** Two layers side by side, drawn to scale by volume: what was predicted and what was seen. */
+/**
+ * Plain columns of layers, to scale by volume, for a case whose names are not in the tables
+ * (so there are no densities for the funnel drawing).
+ */
 export function PhaseBands({ columns, testID }: { columns: BandColumn[]; testID?: string }) {
-  const mismatch = columns.length === 2 && columns.every((c) => c.order) && columns[0]!.order![0] !== columns[1]!.order![0];
   return (
     <View style={styles.wrap} testID={testID} accessible accessibilityLabel={columns.map(describe).join(". ")}>
       <View style={styles.row}>
@@ -54,8 +52,7 @@ export function PhaseBands({ columns, testID }: { columns: BandColumn[]; testID?
                 {c.order ? (
                   <>
                     <Rect x={0} y={0} width={W} height={h.top} fill={colors[c.order[0]]} />
-                    {h.middle > 0 ? <Rect x={0} y={h.top} width={W} height={h.middle} fill={colors.line} /> : null}
-                    <Rect x={0} y={h.top + h.middle} width={W} height={h.bottom} fill={colors[c.order[1]]} />
+                    <Rect x={0} y={h.top} width={W} height={h.bottom} fill={colors[c.order[1]]} />
                     <Line x1={0} x2={W} y1={h.top} y2={h.top} stroke={colors.surface} strokeWidth={2} />
                   </>
                 ) : null}
@@ -75,11 +72,6 @@ export function PhaseBands({ columns, testID }: { columns: BandColumn[]; testID?
           <LegendSwatch phase="aqueous" />
         </View>
       </View>
-      {mismatch ? (
-        <Text bold tone="caution" testID={testID ? `${testID}-mismatch` : undefined}>
-          The layers came out the other way round from the prediction.
-        </Text>
-      ) : null}
     </View>
   );
 }

@@ -1,89 +1,125 @@
 import { StyleSheet, View } from "react-native";
 import { colors, space } from "../../hooks/theme";
 import { findSolute, findSolvent } from "../../knowledge/reference";
+import { concentrationPicks, VOLUME_PICKS } from "../layers/system-form";
 import { Button } from "../ui/button";
 import { Field } from "../ui/field";
+import { QuantityField } from "../ui/quantity-field";
+import { SolutePicker } from "../ui/solute-picker";
+import { SolventPicker } from "../ui/solvent-picker";
 import { Text } from "../ui/text";
 import type { CaseDraftValue, FieldErrors } from "./case-draft";
-import { Chip } from "./choice-chips";
-import { COMMON_AQUEOUS, COMMON_VOLUMES_ML } from "./vocab";
 
 type SetDraft = (fn: (d: CaseDraftValue) => CaseDraftValue) => void;
 
-/** Quick picks under a volume field: typing stays possible ("0.5 L"), steppers do not exist. */
-function VolumePicks({ onPick, testID, current }: { onPick: (ml: number) => void; testID: string; current: string }) {
+const TEMPERATURE_PICKS = ["5 °C", "20 °C", "25 °C", "40 °C"] as const;
+
+/**
+ * A name is picked from the reference tables (any synonym finds it), or typed freely when the
+ * tables do not have it: the case log keeps unusual solvents too, just without a prediction.
+ */
+function isFree(text: string, flagged: boolean | undefined, known: (t: string) => unknown): boolean {
+  return !!flagged || (text.trim() !== "" && !known(text));
+}
+
+function FreeName({
+  label,
+  value,
+  onChange,
+  onBack,
+  error,
+  testID,
+}: {
+  label: string;
+  value: string;
+  onChange: (t: string) => void;
+  onBack: () => void;
+  error?: string;
+  testID: string;
+}) {
   return (
-    <View style={styles.picks}>
-      {COMMON_VOLUMES_ML.map((ml) => (
-        <Chip
-          key={ml}
-          shape="square"
-          label={String(ml)}
-          on={current.trim() === String(ml) || current.trim() === `${ml} mL`}
-          onPress={() => onPick(ml)}
-          testID={`${testID}-${ml}`}
-        />
-      ))}
-      <Text size="caption" tone="inkMuted">
-        mL
-      </Text>
+    <View style={styles.free}>
+      <Field
+        label={label}
+        value={value}
+        onChangeText={onChange}
+        autoCapitalize="none"
+        autoCorrect={false}
+        error={error}
+        help="Not in the reference tables: saved as typed, no layer prediction"
+        testID={`${testID}-free`}
+      />
+      <View style={styles.start}>
+        <Button label="Pick from the tables instead" variant="quiet" onPress={onBack} testID={`${testID}-pick-instead`} />
+      </View>
     </View>
   );
-}
-
-function solventHelp(text: string): string | undefined {
-  if (!text.trim()) return "Any name: DCM, methylene chloride, CH2Cl2 or 75-09-2";
-  const s = findSolvent(text);
-  return s ? `${s.name} · ${s.densityGPerMl20C.value.toFixed(3)} g/mL at 20 °C` : "Not in the solvent table: saved as typed, no layer prediction";
-}
-
-function soluteHelp(text: string): string | undefined {
-  if (!text.trim()) return "Water, brine, NaHCO3, 1 M HCl…";
-  const s = findSolute(text);
-  return s ? s.name : "Not in the aqueous table: saved as typed, no layer prediction";
 }
 
 export function SystemFields({ draft, set, errors }: { draft: CaseDraftValue; set: SetDraft; errors: FieldErrors }) {
   const setOrganic = (i: number, patch: Partial<CaseDraftValue["organic"][number]>) =>
     set((d) => ({ ...d, organic: d.organic.map((o, j) => (j === i ? { ...o, ...patch } : o)) }));
   const setAqueous = (patch: Partial<CaseDraftValue["aqueous"]>) => set((d) => ({ ...d, aqueous: { ...d.aqueous, ...patch } }));
+  const several = draft.organic.length > 1;
+  const solute = findSolute(draft.aqueous.solute);
+  const soluteFree = isFree(draft.aqueous.solute, draft.aqueous.freeText, findSolute);
   return (
     <View style={styles.section}>
       <Text size="title" bold accessibilityRole="header">
         Organic phase
       </Text>
-      {draft.organic.map((o, i) => (
-        <View key={i} style={styles.part}>
-          <Field
-            label={draft.organic.length > 1 ? `Solvent ${i + 1}` : "Solvent"}
-            value={o.solvent}
-            onChangeText={(t) => setOrganic(i, { solvent: t })}
-            autoCapitalize="none"
-            autoCorrect={false}
-            error={errors[`system.organic.${i}.solvent`]}
-            help={solventHelp(o.solvent)}
-            testID={`organic-${i}-solvent`}
-          />
-          <Field
-            label="Volume"
-            value={o.volume}
-            onChangeText={(t) => setOrganic(i, { volume: t })}
-            placeholder="50 mL"
-            inputMode="decimal"
-            error={errors[`system.organic.${i}.volumeMl`]}
-            testID={`organic-${i}-volume`}
-          />
-          <VolumePicks current={o.volume} onPick={(ml) => setOrganic(i, { volume: String(ml) })} testID={`organic-${i}-volume-pick`} />
-          {draft.organic.length > 1 ? (
-            <Button
-              label={`Remove solvent ${i + 1}`}
-              variant="quiet"
-              onPress={() => set((d) => ({ ...d, organic: d.organic.filter((_, j) => j !== i) }))}
-              testID={`organic-${i}-remove`}
+      {draft.organic.map((o, i) => {
+        const label = several ? `Solvent ${i + 1}` : "Solvent";
+        return (
+          <View key={i} style={styles.part}>
+            {isFree(o.solvent, o.freeText, findSolvent) ? (
+              <FreeName
+                label={label}
+                value={o.solvent}
+                onChange={(t) => setOrganic(i, { solvent: t, freeText: true })}
+                onBack={() => setOrganic(i, { solvent: "", freeText: false })}
+                error={errors[`system.organic.${i}.solvent`]}
+                testID={`organic-${i}-solvent`}
+              />
+            ) : (
+              <>
+                <SolventPicker
+                  label={label}
+                  value={findSolvent(o.solvent)?.key ?? null}
+                  onChange={(key) => setOrganic(i, { solvent: key, freeText: false })}
+                  error={errors[`system.organic.${i}.solvent`]}
+                  testID={`organic-${i}-solvent`}
+                />
+                {!o.solvent ? (
+                  <View style={styles.start}>
+                    <Button label="Not in the list? Type its name" variant="quiet" onPress={() => setOrganic(i, { freeText: true })} testID={`organic-${i}-solvent-type`} />
+                  </View>
+                ) : null}
+              </>
+            )}
+            <QuantityField
+              label={several ? `Volume of solvent ${i + 1}` : "Volume"}
+              kind="volume"
+              text={o.volume}
+              onChangeText={(t) => setOrganic(i, { volume: t })}
+              picks={VOLUME_PICKS}
+              placeholder="50 mL"
+              error={errors[`system.organic.${i}.volumeMl`]}
+              testID={`organic-${i}-volume`}
             />
-          ) : null}
-        </View>
-      ))}
+            {several ? (
+              <View style={styles.start}>
+                <Button
+                  label={`Remove solvent ${i + 1}`}
+                  variant="quiet"
+                  onPress={() => set((d) => ({ ...d, organic: d.organic.filter((_, j) => j !== i) }))}
+                  testID={`organic-${i}-remove`}
+                />
+              </View>
+            ) : null}
+          </View>
+        );
+      })}
       {draft.organic.length < 6 ? (
         <Button
           label="Add another solvent"
@@ -96,61 +132,68 @@ export function SystemFields({ draft, set, errors }: { draft: CaseDraftValue; se
       <Text size="title" bold accessibilityRole="header">
         Aqueous phase
       </Text>
-      <View style={styles.picks}>
-        {COMMON_AQUEOUS.map((a) => (
-          <Chip
-            key={a.label}
-            shape="square"
-            label={a.label}
-            on={draft.aqueous.solute === a.solute && draft.aqueous.concentration === a.concentration}
-            onPress={() => setAqueous({ solute: a.solute, concentration: a.concentration })}
-            testID={`aqueous-pick-${a.solute.replace(/\s+/g, "-")}`}
+      {soluteFree ? (
+        <FreeName
+          label="Aqueous solution"
+          value={draft.aqueous.solute}
+          onChange={(t) => setAqueous({ solute: t, freeText: true })}
+          onBack={() => setAqueous({ solute: "", freeText: false })}
+          error={errors["system.aqueous.solute"]}
+          testID="aqueous-solute"
+        />
+      ) : (
+        <>
+          <SolutePicker
+            label="Aqueous solution"
+            value={solute?.key ?? null}
+            onChange={(key, concentration) =>
+              setAqueous({
+                solute: key,
+                freeText: false,
+                concentration: key === "water" ? "" : (concentration ?? (key === solute?.key ? draft.aqueous.concentration : "")),
+              })
+            }
+            error={errors["system.aqueous.solute"]}
+            testID="aqueous-solute"
           />
-        ))}
-      </View>
-      <Field
-        label="Aqueous solution"
-        value={draft.aqueous.solute}
-        onChangeText={(t) => setAqueous({ solute: t })}
-        autoCapitalize="none"
-        autoCorrect={false}
-        error={errors["system.aqueous.solute"]}
-        help={soluteHelp(draft.aqueous.solute)}
-        testID="aqueous-solute"
-      />
-      <View style={styles.pair}>
-        <View style={styles.pairItem}>
-          <Field
-            label="Concentration"
-            value={draft.aqueous.concentration}
-            onChangeText={(t) => setAqueous({ concentration: t })}
-            placeholder="sat., 1 M, 10 %"
-            autoCapitalize="none"
-            error={errors["system.aqueous.concentration"]}
-            testID="aqueous-concentration"
-          />
-        </View>
-        <View style={styles.pairItem}>
-          <Field
-            label="Temperature (°C)"
-            value={draft.temperature}
-            onChangeText={(t) => set((d) => ({ ...d, temperature: t }))}
-            inputMode="decimal"
-            error={errors["system.temperatureC"]}
-            testID="temperature"
-          />
-        </View>
-      </View>
-      <Field
+          {!draft.aqueous.solute ? (
+            <View style={styles.start}>
+              <Button label="Not in the list? Type its name" variant="quiet" onPress={() => setAqueous({ freeText: true })} testID="aqueous-solute-type" />
+            </View>
+          ) : null}
+        </>
+      )}
+      {solute?.key !== "water" ? (
+        <QuantityField
+          label="Concentration"
+          kind="concentration"
+          text={draft.aqueous.concentration}
+          onChangeText={(t) => setAqueous({ concentration: t })}
+          picks={solute ? concentrationPicks(solute) : ["saturated", "1 M", "10 %"]}
+          placeholder="e.g. 1 M or saturated"
+          error={errors["system.aqueous.concentration"] ?? errors["system.aqueous.concentration.value"]}
+          testID="aqueous-concentration"
+        />
+      ) : null}
+      <QuantityField
         label="Volume"
-        value={draft.aqueous.volume}
+        kind="volume"
+        text={draft.aqueous.volume}
         onChangeText={(t) => setAqueous({ volume: t })}
+        picks={VOLUME_PICKS}
         placeholder="50 mL"
-        inputMode="decimal"
         error={errors["system.aqueous.volumeMl"]}
         testID="aqueous-volume"
       />
-      <VolumePicks current={draft.aqueous.volume} onPick={(ml) => setAqueous({ volume: String(ml) })} testID="aqueous-volume-pick" />
+      <QuantityField
+        label="Temperature in the funnel"
+        kind="temperature"
+        text={draft.temperature}
+        onChangeText={(t) => set((d) => ({ ...d, temperature: t }))}
+        picks={TEMPERATURE_PICKS}
+        error={errors["system.temperatureC"]}
+        testID="temperature"
+      />
     </View>
   );
 }
@@ -158,7 +201,6 @@ export function SystemFields({ draft, set, errors }: { draft: CaseDraftValue; se
 const styles = StyleSheet.create({
   section: { gap: space.md },
   part: { gap: space.sm, paddingLeft: space.md, borderLeftWidth: 4, borderLeftColor: colors.organic },
-  picks: { flexDirection: "row", flexWrap: "wrap", gap: space.sm, alignItems: "center" },
-  pair: { flexDirection: "row", flexWrap: "wrap", gap: space.md },
-  pairItem: { flexGrow: 1, flexBasis: 150 },
+  free: { gap: space.xs },
+  start: { alignSelf: "flex-start", marginLeft: -space.lg },
 });

@@ -89,16 +89,3 @@ export function tagLabel(tag: string): string {
   return t.charAt(0).toUpperCase() + t.slice(1);
 }
 export const TAG_CHOICES: Choice<string>[] = SUGGESTED_CASE_TAGS.map((t) => ({ value: t, label: tagLabel(t) }));
-
-/** Common funnel volumes (UX: pick, do not step). */
-export const COMMON_VOLUMES_ML = [5, 10, 15, 20, 25, 50, 100] as const;
-
-/** Aqueous phases one tap away: what the field is filled with. */
-export const COMMON_AQUEOUS: { label: string; solute: string; concentration: string }[] = [
-  { label: "Water", solute: "water", concentration: "" },
-  { label: "Sat. brine", solute: "sodium chloride", concentration: "saturated" },
-  { label: "Sat. NaHCO₃", solute: "sodium bicarbonate", concentration: "saturated" },
-  { label: "1 M HCl", solute: "hydrochloric acid", concentration: "1 M" },
-  { label: "1 M NaOH", solute: "sodium hydroxide", concentration: "1 M" },
-  { label: "Sat. NH₄Cl", solute: "ammonium chloride", concentration: "saturated" },
-];

@@ -44,15 +44,16 @@ describe("case log", () => {
       await page.getByTestId("nav-cases").click();
       await page.getByTestId("cases-search").waitFor();
       await page.getByTestId("cases-new").first().click();
-      await page.getByTestId("organic-0-solvent").waitFor();
+      await page.getByTestId("organic-0-solvent-search").waitFor();
 
       // The system, mostly by taps.
-      await page.getByTestId("organic-0-solvent").fill("dichloromethane");
+      await page.getByTestId("organic-0-solvent-search").fill("dichloromethane");
+      await page.getByTestId("organic-0-solvent-option-dichloromethane").click();
       // CRC Handbook: dichloromethane 1.3266 g/mL at 20 °C, shown to 3 decimals.
-      await page.getByText("Dichloromethane · 1.327 g/mL at 20 °C").waitFor();
-      await page.getByTestId("organic-0-volume-pick-50").click();
-      await page.getByTestId("aqueous-pick-sodium-bicarbonate").click();
-      await page.getByTestId("aqueous-volume-pick-50").click();
+      expect(await page.getByTestId("organic-0-solvent-chosen").innerText()).toContain("1.327 g/mL at 20 °C");
+      await page.getByTestId("organic-0-volume-pick-50 mL").click();
+      await page.getByTestId("aqueous-solute-option-sodium-bicarbonate-saturated").click();
+      await page.getByTestId("aqueous-volume-pick-50 mL").click();
       await page.getByTestId("observed-organic").click();
       await page.getByTestId("kind-milky-band").click();
       await page.getByTestId("emulsion-pct").fill("20");
@@ -109,7 +110,9 @@ describe("case log", () => {
       await page.getByTestId("attempt-2").waitFor();
       expect(await page.getByTestId("attempt-2-outcome").innerText()).toMatch(/Cleared/);
       await page.getByTestId("case-what-worked").getByText(/brine/i).waitFor();
-      expect(await page.getByTestId("case-bands").getAttribute("aria-label")).toMatch(/Predicted: aqueous on top, organic below\. Seen: aqueous on top, organic below/);
+      expect(await page.getByTestId("case-layers-caption").innerText()).toBe("Predicted and seen: organic at the bottom");
+      const funnel = await page.getByTestId("case-layers").locator("[aria-label^='Funnel drawing']").getAttribute("aria-label");
+      expect(funnel).toContain("Bottom layer: organic, 50 mL, 1.327 g/mL");
       await page.getByRole("heading", { name: TITLE }).scrollIntoViewIfNeeded();
       await shot(page, "case-page-phone");
       await page.getByTestId("attempt-1").scrollIntoViewIfNeeded();
@@ -117,17 +120,9 @@ describe("case log", () => {
 
       // Found again months later: typed as "dichloromethane", searched as "DCM".
       await page.getByTestId("case-back").click();
-      await page.getByTestId("cases-count").getByText(/^\d+ cases?$/).waitFor();
-      const everything = await page.getByTestId("cases-count").innerText();
       await page.getByTestId("cases-search").fill("DCM");
-      // Wait for the search to replace the full list (the box waits a moment before asking).
-      await page.waitForFunction(
-        (before) => {
-          const t = document.querySelector('[data-testid="cases-count"]')?.textContent ?? "";
-          return /^\d+ cases?( · best match first)?$/.test(t) && t !== before;
-        },
-        everything,
-      );
+      // The count says "best match first" only once the answer to this search is on screen.
+      await page.getByTestId("cases-count").getByText(/^\d+ cases? · best match first$/).waitFor();
       await page.getByTestId(`case-card-${caseId}`).waitFor();
       expect(await page.getByTestId(`case-card-${caseId}`).innerText()).toMatch(/brine/i);
       // Every hit has dichloromethane in its system, whatever name it was logged under.
@@ -164,7 +159,7 @@ describe("case log", () => {
       await page.getByTestId("attempt-2").waitFor();
       await shot(page, "case-page-wide");
       await page.goto(`${BASE_URL}/cases/new`);
-      await page.getByTestId("organic-0-solvent").waitFor();
+      await page.getByTestId("organic-0-solvent-search").waitFor();
       await shot(page, "case-new-wide");
     } finally {
       await b.close();

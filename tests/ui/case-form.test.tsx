@@ -32,6 +32,12 @@ function ui(draftKey: string, onCreated = jest.fn()) {
 
 const created = { id: "case-1", title: "Dichloromethane over sodium bicarbonate" };
 
+/** Type into a table picker and take the row for `key` (any synonym finds it). */
+async function pick(testID: string, typed: string, key: string) {
+  await fireEvent.changeText(screen.getByTestId(`${testID}-search`), typed);
+  await fireEvent.press(screen.getByTestId(`${testID}-option-${key}`));
+}
+
 describe("CaseForm", () => {
   const realFetch = global.fetch;
   let n = 0;
@@ -51,21 +57,22 @@ describe("CaseForm", () => {
     const calls: Call[] = [];
     global.fetch = fakeFetch(200, created, calls) as typeof fetch;
     const first = await render(ui(key));
-    await fireEvent.changeText(screen.getByTestId("organic-0-solvent"), "dichloromethane");
+    await pick("organic-0-solvent", "methylene chloride", "dichloromethane");
     await fireEvent.changeText(screen.getByTestId("organic-0-volume"), "0.5 L");
-    await fireEvent.press(screen.getByTestId("aqueous-pick-sodium-bicarbonate"));
+    // The common "Saturated NaHCO3" row brings its concentration with it.
+    await fireEvent.press(screen.getByTestId("aqueous-solute-option-sodium-bicarbonate-saturated"));
     await fireEvent.press(screen.getByTestId("observed-aqueous"));
     await first.unmount();
 
     const stored = readDraft<{ organic: { solvent: string; volume: string }[]; observedBottom: string }>(key);
-    expect(stored?.data.organic[0]).toEqual({ solvent: "dichloromethane", volume: "0.5 L" });
+    expect(stored?.data.organic[0]).toMatchObject({ solvent: "dichloromethane", volume: "0.5 L" });
     expect(stored?.data.observedBottom).toBe("aqueous");
 
     await render(ui(key));
     expect(screen.getByTestId("draft-restored")).toBeTruthy();
-    expect(screen.getByTestId("organic-0-solvent").props.value).toBe("dichloromethane");
+    expect(screen.getByTestId("organic-0-solvent-chosen")).toHaveTextContent(/Dichloromethane/);
     expect(screen.getByTestId("organic-0-volume").props.value).toBe("0.5 L");
-    expect(screen.getByTestId("aqueous-solute").props.value).toBe("sodium bicarbonate");
+    expect(screen.getByTestId("aqueous-solute-chosen")).toHaveTextContent(/Sodium bicarbonate/);
     expect(screen.getByTestId("aqueous-concentration").props.value).toBe("saturated");
     expect(calls).toHaveLength(0);
   });
@@ -87,9 +94,9 @@ describe("CaseForm", () => {
     const calls: Call[] = [];
     global.fetch = fakeFetch(200, created, calls) as typeof fetch;
     await render(ui(key));
-    await fireEvent.changeText(screen.getByTestId("organic-0-solvent"), "DCM");
+    await pick("organic-0-solvent", "DCM", "dichloromethane");
     await fireEvent.changeText(screen.getByTestId("organic-0-volume"), "fifty");
-    await fireEvent.changeText(screen.getByTestId("aqueous-solute"), "water");
+    await pick("aqueous-solute", "water", "water");
     await fireEvent.changeText(screen.getByTestId("aqueous-volume"), "0");
     await fireEvent.press(screen.getByTestId("case-save"));
     expect(screen.getByTestId("case-errors")).toHaveTextContent(/Solvent volume: "fifty" is not a quantity/);
@@ -103,10 +110,10 @@ describe("CaseForm", () => {
     global.fetch = fakeFetch(201, created, calls) as typeof fetch;
     const onCreated = jest.fn();
     await render(ui(key, onCreated));
-    await fireEvent.changeText(screen.getByTestId("organic-0-solvent"), "DCM");
+    await pick("organic-0-solvent", "DCM", "dichloromethane");
     await fireEvent.changeText(screen.getByTestId("organic-0-volume"), "0.5 L");
-    await fireEvent.press(screen.getByTestId("aqueous-pick-sodium-bicarbonate"));
-    await fireEvent.press(screen.getByTestId("aqueous-volume-pick-100"));
+    await fireEvent.press(screen.getByTestId("aqueous-solute-option-sodium-bicarbonate-saturated"));
+    await fireEvent.press(screen.getByTestId("aqueous-volume-pick-100 mL"));
     await fireEvent.changeText(screen.getByTestId("temperature"), "25 °C");
     await fireEvent.press(screen.getByTestId("kind-milky-band"));
     await fireEvent.press(screen.getByTestId("observed-organic"));
@@ -118,12 +125,12 @@ describe("CaseForm", () => {
     expect(calls[0]?.method).toBe("POST");
     const body = createCaseBody.parse(calls[0]?.body);
     // 0.5 L is 500 mL; "saturated" is the contract's literal; the title is suggested from the system.
-    expect(body.system.organic).toEqual([{ solvent: "DCM", volumeMl: 500 }]);
-    expect(body.system.aqueous).toEqual({ solute: "sodium bicarbonate", concentration: "saturated", volumeMl: 100 });
+    expect(body.system.organic).toEqual([{ solvent: "dichloromethane", volumeMl: 500 }]);
+    expect(body.system.aqueous).toEqual({ solute: "sodium-bicarbonate", concentration: "saturated", volumeMl: 100 });
     expect(body.system.temperatureC).toBe(25);
     expect(body.observedBottom).toBe("organic");
     expect(body.seen.kind).toBe("milky-band");
-    expect(body.title).toBe("Emulsion: DCM over saturated sodium bicarbonate");
+    expect(body.title).toBe("Emulsion: dichloromethane over saturated sodium bicarbonate");
     expect(readDraft(key)).toBeNull();
   });
 
@@ -133,16 +140,16 @@ describe("CaseForm", () => {
     global.fetch = fakeFetch(400, refusal, calls) as typeof fetch;
     const onCreated = jest.fn();
     await render(ui(key, onCreated));
-    await fireEvent.changeText(screen.getByTestId("organic-0-solvent"), "ethyl acetate");
+    await pick("organic-0-solvent", "EtOAc", "ethyl-acetate");
     await fireEvent.changeText(screen.getByTestId("organic-0-volume"), "40");
-    await fireEvent.changeText(screen.getByTestId("aqueous-solute"), "brine");
+    await pick("aqueous-solute", "brine", "sodium-chloride");
     await fireEvent.changeText(screen.getByTestId("aqueous-volume"), "40 mL");
     await fireEvent.press(screen.getByTestId("case-save"));
 
     await waitFor(() => expect(screen.getByTestId("case-errors")).toHaveTextContent(/Solvent volume: The volume must be more than 0 mL\./));
     expect(calls).toHaveLength(1);
     expect(onCreated).not.toHaveBeenCalled();
-    expect(screen.getByTestId("organic-0-solvent").props.value).toBe("ethyl acetate");
+    expect(screen.getByTestId("organic-0-solvent-chosen")).toHaveTextContent(/Ethyl acetate/);
     expect(readDraft<{ aqueous: { volume: string } }>(key)?.data.aqueous.volume).toBe("40 mL");
   });
 
@@ -151,13 +158,16 @@ describe("CaseForm", () => {
       throw new TypeError("Network request failed");
     }) as typeof fetch;
     await render(ui(key));
-    await fireEvent.changeText(screen.getByTestId("organic-0-solvent"), "toluene");
+    // A solvent the tables do not hold is typed freely and kept as typed.
+    await fireEvent.press(screen.getByTestId("organic-0-solvent-type"));
+    await fireEvent.changeText(screen.getByTestId("organic-0-solvent-free"), "limonene");
     await fireEvent.changeText(screen.getByTestId("organic-0-volume"), "30");
-    await fireEvent.changeText(screen.getByTestId("aqueous-solute"), "water");
+    await pick("aqueous-solute", "water", "water");
     await fireEvent.changeText(screen.getByTestId("aqueous-volume"), "30");
     await fireEvent.press(screen.getByTestId("case-save"));
     await waitFor(() => expect(screen.getByTestId("case-save-error")).toHaveTextContent(/Your entries are kept here/));
-    expect(readDraft<{ organic: { solvent: string }[] }>(key)?.data.organic[0]?.solvent).toBe("toluene");
+    expect(readDraft<{ organic: { solvent: string; freeText?: boolean }[] }>(key)?.data.organic[0]).toMatchObject({ solvent: "limonene", freeText: true });
+    expect(screen.getByTestId("organic-0-solvent-free").props.value).toBe("limonene");
     expect(screen.getByTestId("case-save")).toBeTruthy();
   });
 });
