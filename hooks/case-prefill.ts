@@ -41,6 +41,8 @@ export interface CasePrefill {
   seen?: PrefillSeen;
   /** reaction or work-up context tags, e.g. "metal-salts", "phase-transfer-catalyst" */
   tags?: string[];
+  /** suspected cause codes from the emulsion catalogue, most likely first ("fine-solids") */
+  causes?: string[];
   /** free text to start the title with */
   title?: string;
 }
@@ -48,6 +50,8 @@ export interface CasePrefill {
 export const PREFILL_PARAM = "system";
 const MAX_ORGANIC_PARTS = 6;
 const MAX_TAGS = 12;
+/** the create-case contract takes at most 8 causes */
+const MAX_CAUSES = 8;
 
 /** JSON for the `system` query parameter (not yet URL-encoded). Empty parts are left out. */
 export function encodeCasePrefill(prefill: CasePrefill): string {
@@ -57,6 +61,7 @@ export function encodeCasePrefill(prefill: CasePrefill): string {
   if (prefill.temperatureC !== undefined) out.temperatureC = prefill.temperatureC;
   if (prefill.seen && Object.values(prefill.seen).some((v) => v !== undefined)) out.seen = prefill.seen;
   if (prefill.tags?.length) out.tags = prefill.tags;
+  if (prefill.causes?.length) out.causes = prefill.causes;
   if (prefill.title) out.title = prefill.title;
   return JSON.stringify(out);
 }
@@ -114,6 +119,10 @@ export function decodeCasePrefill(raw: string | string[] | undefined | null): Ca
   if (Array.isArray(o.tags)) {
     const tags = o.tags.filter((x): x is string => typeof x === "string" && x.trim() !== "").map((x) => x.trim().slice(0, 60));
     if (tags.length) out.tags = [...new Set(tags)].slice(0, MAX_TAGS);
+  }
+  if (Array.isArray(o.causes)) {
+    const causes = o.causes.filter((x): x is string => typeof x === "string" && /^[a-z0-9][a-z0-9-]{0,59}$/.test(x));
+    if (causes.length) out.causes = [...new Set(causes)].slice(0, MAX_CAUSES);
   }
   const title = pick(z.string().trim().min(1).max(160), o.title);
   if (title) out.title = title;

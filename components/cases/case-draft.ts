@@ -94,6 +94,7 @@ export function draftFromPrefill(p: CasePrefill): CaseDraftValue {
     d.flags = FLAG_KEYS.filter((k) => p.seen?.[k] === true);
   }
   if (p.tags?.length) d.tags = p.tags;
+  if (p.causes?.length) d.causes = p.causes;
   return d;
 }
 

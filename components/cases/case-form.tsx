@@ -67,7 +67,8 @@ export function CaseForm({ draftKey, prefill, onCreated }: CaseFormProps) {
   const uploaded = useRef(new Set<string>());
   const photosRef = useRef<PickedPhoto[]>([]);
   photosRef.current = photos;
-  const [more, setMore] = useState(false);
+  // Open the details when a link or a restored draft already filled some of them.
+  const [more, setMore] = useState(() => d.causes.length > 0 || d.tags.length > 0 || d.notes !== "" || d.funnel !== "");
   const placeholderTitle = useMemo(() => suggestedTitle(d), [d]);
 
   const finishIfDone = (c: CaseDetail) => {

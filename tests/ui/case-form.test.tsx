@@ -1,6 +1,7 @@
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { fireEvent, render, screen, waitFor } from "@testing-library/react-native";
 import { CaseForm } from "../../components/cases/case-form";
+import { caseStartHref, decodeCasePrefill, type CasePrefill } from "../../hooks/case-prefill";
 import { readDraft, removeDraft } from "../../hooks/use-draft";
 import { createCaseBody } from "../../knowledge/contracts/cases";
 
@@ -20,12 +21,12 @@ function fakeFetch(status: number, payload: unknown, calls: Call[]) {
 
 const clients: QueryClient[] = [];
 
-function ui(draftKey: string, onCreated = jest.fn()) {
+function ui(draftKey: string, onCreated = jest.fn(), prefill: CasePrefill | null = null) {
   const client = new QueryClient({ defaultOptions: { queries: { retry: false }, mutations: { retry: false } } });
   clients.push(client);
   return (
     <QueryClientProvider client={client}>
-      <CaseForm draftKey={draftKey} onCreated={onCreated} />
+      <CaseForm draftKey={draftKey} onCreated={onCreated} prefill={prefill} />
     </QueryClientProvider>
   );
 }
@@ -169,5 +170,30 @@ describe("CaseForm", () => {
     expect(readDraft<{ organic: { solvent: string; freeText?: boolean }[] }>(key)?.data.organic[0]).toMatchObject({ solvent: "limonene", freeText: true });
     expect(screen.getByTestId("organic-0-solvent-free").props.value).toBe("limonene");
     expect(screen.getByTestId("case-save")).toBeTruthy();
+  });
+
+  it("starts from a Start-a-case link, and a restored draft wins over it until asked", async () => {
+    global.fetch = fakeFetch(200, created, []) as typeof fetch;
+    const href = caseStartHref({
+      organic: [{ solvent: "ethyl-acetate", volumeMl: 80 }],
+      aqueous: { solute: "sodium-chloride", concentration: "saturated", volumeMl: 25 },
+      temperatureC: 22,
+      causes: ["fine-solids"],
+    });
+    const prefill = decodeCasePrefill(new URL(`http://x${href}`).searchParams.get("system"));
+    const first = await render(ui(key, jest.fn(), prefill));
+    expect(screen.getByTestId("prefilled")).toBeTruthy();
+    expect(screen.getByTestId("organic-0-solvent-chosen")).toHaveTextContent(/Ethyl acetate/);
+    expect(screen.getByTestId("organic-0-volume").props.value).toBe("80 mL");
+    expect(screen.getByTestId("aqueous-concentration").props.value).toBe("saturated");
+    expect(screen.getByTestId("temperature").props.value).toBe("22 °C");
+    expect(screen.getByTestId("cause-fine-solids").props.accessibilityState).toMatchObject({ checked: true });
+
+    await fireEvent.changeText(screen.getByTestId("organic-0-volume"), "120 mL");
+    await first.unmount();
+    await render(ui(key, jest.fn(), prefill));
+    expect(screen.getByTestId("organic-0-volume").props.value).toBe("120 mL");
+    await fireEvent.press(screen.getByTestId("draft-use-link"));
+    expect(screen.getByTestId("organic-0-volume").props.value).toBe("80 mL");
   });
 });

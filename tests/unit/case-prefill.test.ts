@@ -10,6 +10,7 @@ describe("Start-a-case link", () => {
     temperatureC: 22,
     seen: { emulsionFractionPct: 30, solids: true, cloudyOrganic: false },
     tags: ["amide-coupling"],
+    causes: ["fine-solids", "surfactant-soap"],
   };
 
   it("survives the trip through a URL unchanged", () => {
@@ -32,11 +33,13 @@ describe("Start-a-case link", () => {
       temperatureC: "warm",
       seen: { emulsionFractionPct: 250, thirdLayer: true },
       tags: ["ok", 3, " ok ", ""],
+      causes: ["fine-solids", "Not A Code", "fine-solids"],
     });
     expect(decodeCasePrefill(raw)).toEqual({
       organic: [{ solvent: "ethyl acetate", volumeMl: 80 }],
       seen: { thirdLayer: true },
       tags: ["ok"],
+      causes: ["fine-solids"],
     });
   });
 
