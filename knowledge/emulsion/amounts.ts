@@ -1,3 +1,4 @@
+import { inSentence } from "../text";
 import type { SystemFacts } from "./facts";
 import type { RemedyAmounts } from "./model";
 import { benchAmount } from "./remedies";
@@ -61,7 +62,7 @@ export function remedyAmounts(facts: SystemFacts, funnelMl: number | undefined, 
     organicMl,
     totalMl,
     funnelMl: funnelMl ?? null,
-    mainSolventName: facts.main.name,
+    mainSolventName: inSentence(facts.main.name),
     organicIsBottom: facts.organicIsBottom,
     brineMl: { min: benchAmount(aqueousMl * BRINE_FRACTION.min), max: benchAmount(aqueousMl * BRINE_FRACTION.max) },
     brineUseMl: benchAmount(aqueousMl * BRINE_FRACTION.use),

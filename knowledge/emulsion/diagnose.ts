@@ -1,3 +1,4 @@
+import { inSentence } from "../text";
 import type { LayerPrediction } from "../layers";
 import type { ReferenceData } from "../types";
 import { KnowledgeInputError } from "../types";
@@ -61,6 +62,8 @@ export interface RemedyResult {
   componentMoves?: ComponentMove[];
   evidence?: RemedyEvidence;
   groupNotes?: GroupNote[];
+  /** ruled out for this system (brine that would swap the layers, pH that moves the product, a bath at the boiling point): never a first pick */
+  blocked: boolean;
 }
 
 export interface TroubleshootResult {
@@ -104,7 +107,7 @@ function noisyOr(weights: number[]): number {
 
 const r2 = (x: number) => Math.round(x * 100) / 100;
 const r3 = (x: number) => Math.round(x * 1000) / 1000;
-const phText = (ctx: Context) => (ctx.facts.ph === null ? "" : `pH ${r2(ctx.facts.ph)}${ctx.facts.phMeasured ? "" : " (computed for the wash)"}`);
+const phText = (ctx: Context) => (ctx.facts.ph === null ? "" : `pH ${ctx.facts.ph.toFixed(1)}${ctx.facts.phMeasured ? "" : ", computed for the wash"}`);
 
 const METAL_TAGS = ["metal-salts", "aluminium", "titanium", "tin", "copper", "zinc", "iron", "magnesium", "palladium"] as const;
 const METAL_WORDS: Record<string, string> = {
@@ -248,7 +251,7 @@ const CAUSE_SIGNALS: Record<CauseCode, (ctx: Context) => Signal[]> = {
     if (cloudyOrganic && wet.length) {
       out.push({
         weight: 0.15,
-        reason: wet.map((s) => `${s.solvent.name} takes up about ${s.solvent.waterInSolventWtPct.value} wt% water`).join("; "),
+        reason: wet.map((s) => `${inSentence(s.solvent.name)} takes up about ${s.solvent.waterInSolventWtPct.value} wt% water`).join("; "),
       });
     }
     return out;
@@ -387,7 +390,7 @@ const ADJUST: Partial<Record<RemedyId, (ctx: RemedyContext, d: Draft) => void>> 
       d.reasons.push("the added solvent would swap or stall the layers");
     } else if (cause(ctx, "close-densities") >= LIKELY && after.densityDifferenceGPerMl > ctx.facts.layers.densityDifferenceGPerMl + 0.01) {
       d.factor *= 1.1;
-      d.reasons.push(`more ${solvent.name} widens the gap to ${r3(after.densityDifferenceGPerMl)} g/mL`);
+      d.reasons.push(`more ${inSentence(solvent.name)} widens the gap to ${r3(after.densityDifferenceGPerMl)} g/mL`);
     }
     overfill(d, after);
   },
@@ -427,6 +430,10 @@ const ADJUST: Partial<Record<RemedyId, (ctx: RemedyContext, d: Draft) => void>> 
     }
   },
   centrifuge: (ctx, d) => {
+    // The flammable-vapour caution only where a solvent has a flash point (not for DCM or chloroform).
+    if (!ctx.facts.solvents.some((s) => s.solvent.flashPointC.value !== null)) {
+      d.cautions = d.cautions.map((c) => (c.startsWith("Flammable solvents") ? "Use capped, balanced, solvent-resistant tubes (not polycarbonate for chlorinated solvents); follow the SDS and local rules." : c));
+    }
     const total = ctx.amounts.totalMl;
     const max = REMEDY_MAX_ML.centrifuge;
     if (max !== undefined && total > max) {
@@ -486,7 +493,7 @@ const ADJUST: Partial<Record<RemedyId, (ctx: RemedyContext, d: Draft) => void>> 
     const check = warmingCheck(ctx.facts, ctx.amounts.bathC);
     d.cautions.push(...check.cautions);
     if (check.verdict === "refuse") {
-      const boiling = check.solvents.filter((s) => s.verdict === "refuse").map((s) => `${s.name} (bp ${s.boilingPointC} °C)`).join(", ");
+      const boiling = check.solvents.filter((s) => s.verdict === "refuse").map((s) => `${inSentence(s.name)} (bp ${s.boilingPointC} °C)`).join(", ");
       d.factor *= 0.03;
       d.blocked = true;
       d.reasons.push(`a ${check.bathC} °C bath is at or near the boiling point of ${boiling}`);
@@ -549,7 +556,7 @@ const ADJUST: Partial<Record<RemedyId, (ctx: RemedyContext, d: Draft) => void>> 
     }
     if (found.some((s) => DIPOLAR_APROTIC.has(s.key))) d.reasons.push("DMF, DMSO or NMP: wash out with water or 5 % LiCl rather than evaporate");
     const volatile = found.filter((s) => !DIPOLAR_APROTIC.has(s.key));
-    if (volatile.length) d.reasons.push(`${volatile.map((s) => `${s.name} (bp ${s.boilingPointC.value} °C)`).join(", ")} can be evaporated`);
+    if (volatile.length) d.reasons.push(`${volatile.map((s) => `${inSentence(s.name)} (bp ${s.boilingPointC.value} °C)`).join(", ")} can be evaporated`);
   },
   "dry-organic": (ctx, d) => {
     if (!ctx.input.seen.afterSeparation && !ctx.input.seen.cloudyOrganic) d.factor *= 0.3;
@@ -598,7 +605,6 @@ function contributionReasons(remedy: Remedy, causes: CauseResult[], weights: Par
 }
 
 interface Ranked extends RemedyResult {
-  blocked: boolean;
   /** fit to the causes before the system checks */
   fit: number;
 }
@@ -711,7 +717,7 @@ export function troubleshoot(input: TroubleshootInput, options: TroubleshootOpti
 
   return {
     causes,
-    remedies: ranked.map(({ blocked: _blocked, fit: _fit, ...r }) => r),
+    remedies: ranked.map(({ fit: _fit, ...r }) => r),
     escalation,
     prevention: preventionFor(causes.filter((c) => c.score >= LIKELY).map((c) => c.code)),
     layers: facts.layers,

@@ -1,3 +1,4 @@
+import { inSentence } from "../text";
 import {
   CLEAR_DENSITY_DIFFERENCE_G_PER_ML,
   NEAR_BOILING_MARGIN_K,
@@ -152,7 +153,7 @@ function aqueousWithSalt(facts: SystemFacts, naclG: number, addedWaterG: number,
 function approxNote(facts: SystemFacts): string {
   return facts.solute.key === "water" || facts.solute.key === SODIUM_CHLORIDE
     ? ""
-    : ` Mixed with ${facts.solute.name}, the density is estimated by adding volumes (about ±0.01 g/mL).`;
+    : ` Mixed with ${inSentence(facts.solute.name)}, the density is estimated by adding volumes (about ±0.01 g/mL).`;
 }
 
 function saltedAfter(facts: SystemFacts, aq: { densityGPerMl: number; volumeMl: number }, funnelMl: number | undefined, what: string): PhaseAfter {
@@ -231,7 +232,7 @@ export function organicAfter(facts: SystemFacts, solvent: string, volumeMl: numb
     next.organicVolumeMl,
     next.aqueousVolumeMl,
     funnelMl,
-    `After ${r1(volumeMl)} mL more ${next.organicParts[next.organicParts.length - 1]!.name}`,
+    `After ${r1(volumeMl)} mL more ${inSentence(next.organicParts[next.organicParts.length - 1]!.name)}`,
   );
 }
 
@@ -323,7 +324,7 @@ export function neutralisationEffect(facts: SystemFacts, targetPh: number): Neut
   const boiling = facts.solvents.filter((s) => peak >= s.solvent.boilingPointC.value - NEAR_BOILING_MARGIN_K);
   if (result.temperatureRiseK >= 1 && boiling.length) {
     cautions.push(
-      `Up to ${Math.round(peak)} °C is near the boiling point of ${boiling.map((s) => `${s.solvent.name} (${s.solvent.boilingPointC.value} °C)`).join(", ")}: neutralise the aqueous layer alone, cold, before it meets the solvent again.`,
+      `Up to ${Math.round(peak)} °C is near the boiling point of ${boiling.map((s) => `${inSentence(s.solvent.name)} (${s.solvent.boilingPointC.value} °C)`).join(", ")}: neutralise the aqueous layer alone, cold, before it meets the solvent again.`,
     );
   }
   return { result, reagent: `${PH_REAGENT_MOL_L} M ${acidify ? "HCl" : "NaOH"}`, cautions };
@@ -398,7 +399,7 @@ export function warmingCheck(facts: SystemFacts, bathC: number = DEFAULT_BATH_C)
     .map((s) => {
       const vp = s.vapourPressureKPa === null ? "" : ` (vapour pressure about ${Math.round(s.vapourPressureKPa)} kPa at ${bathC} °C)`;
       return s.verdict === "refuse"
-        ? `Do not warm: ${s.name} boils at ${s.boilingPointC} °C${vp}, so a ${bathC} °C bath boils it or builds pressure; follow the SDS and local rules.`
+        ? `Do not warm: ${inSentence(s.name)} boils at ${s.boilingPointC} °C${vp}, so a ${bathC} °C bath boils it or builds pressure; follow the SDS and local rules.`
         : `${s.name} boils at ${s.boilingPointC} °C${vp}: warm only in an open flask and vent; follow the SDS and local rules.`;
     });
   return { bathC, verdict, solvents, cautions };

@@ -1,3 +1,4 @@
+import { volumeText } from "../text";
 import { SHIPPED_REFERENCE } from "../reference";
 import { KnowledgeInputError, type Concentration, type KnowledgeWarning, type ReferenceData } from "../types";
 import { combineMixtures, effectiveTotalMolL, netCharge, PKW_25C, solvePh, speciesFractions, type AqueousMixture, type ProticSystem } from "./acid-base";
@@ -180,7 +181,7 @@ export function neutraliseExtract(input: NeutraliseInput, ref: ReferenceData = S
   if (co2Mmol > 0.01) {
     warnings.push({
       code: "co2-gas",
-      message: `About ${Math.round(co2Ml)} mL of CO2 (${co2Mmol.toFixed(1)} mmol at ${temperatureC} °C, 1 atm) comes off. ${VENTING_CAUTION}`,
+      message: `About ${volumeText(co2Ml)} of CO2 (${co2Mmol.toFixed(1)} mmol at ${temperatureC} °C, 1 atm) comes off. ${VENTING_CAUTION}`,
     });
   }
   if (temperatureRiseK >= 1) {

@@ -1,3 +1,4 @@
+import { volumeText } from "../text";
 import { predictLayers, type LayerConfidence, type Phase } from "../layers";
 import { requireSolvent, SHIPPED_REFERENCE } from "../reference";
 import { KnowledgeInputError, type Concentration, type KnowledgeWarning, type ReferenceData } from "../types";
@@ -319,7 +320,7 @@ export function computePlan(input: PlanInput, ref: ReferenceData = SHIPPED_REFER
       warn(
         "co2-gas",
         washCo2Mmol > 0.05
-          ? `${label}: about ${Math.round(perPass * gasMlPerMmol(T))} mL of CO2 per pass (${perPass.toFixed(1)} mmol at ${T} °C, 1 atm) as it neutralises the acids.${carried} Swirl unstoppered first, then vent after every inversion, tip pointed away from people.`
+          ? `${label}: about ${volumeText(perPass * gasMlPerMmol(T))} of CO2 per pass (${perPass.toFixed(1)} mmol at ${T} °C, 1 atm) as it neutralises the acids.${carried} Swirl unstoppered first, then vent after every inversion, tip pointed away from people.`
           : `${label}: little CO2 expected from the listed components.${carried} Swirl unstoppered first and vent after every inversion.`,
       );
       if (maxPassCo2Ml >= LITRES_OF_GAS_ML) {

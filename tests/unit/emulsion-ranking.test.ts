@@ -150,10 +150,16 @@ describe("troubleshoot ranking", () => {
       known: { viscous: true },
     });
     const warm = r.remedies.find((m) => m.id === "warm-bath")!;
-    expect(warm.cautions.join(" ")).toMatch(/Do not warm: Dichloromethane boils at 39.6 °C/);
+    expect(warm.cautions.join(" ")).toMatch(/Do not warm: dichloromethane boils at 39.6 °C/);
     expect(warm.steps[0]).toMatch(/^Do not warm/);
     expect(r.escalation).not.toContain("warm-bath");
     expect(r.remedies[0]?.id).not.toBe("warm-bath");
+    // the result says so itself, for screens that show ruled-out remedies apart
+    expect(warm.blocked).toBe(true);
+    expect(r.remedies.filter((m) => !m.blocked).length).toBeGreaterThan(0);
+    // DCM has no flash point: the centrifuge caution speaks of tubes, not flammable vapour (flash point: none, per the solvent table)
+    const spin = r.remedies.find((m) => m.id === "centrifuge");
+    if (spin) expect(spin.cautions.join(" ")).not.toMatch(/^Flammable/);
   });
 
   it("lets a toluene emulsion of a viscous crude be warmed, with the layers at 40 °C", () => {
