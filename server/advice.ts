@@ -4,6 +4,7 @@ import { adviceScope, type AdviceNote } from "../knowledge/contracts/advice";
 import type { CasePhBand } from "../knowledge/contracts/cases";
 import { isSimilar, type EvidenceRecord } from "../knowledge/emulsion/evidence";
 import type { GroupNote } from "../knowledge/emulsion";
+import { CAUSES } from "../knowledge/emulsion/causes";
 import { REMEDIES } from "../knowledge/emulsion/remedies";
 import type { Database } from "../db/client";
 import { caseAttempts, cases, groupAdvice, user } from "../db/schema";
@@ -95,7 +96,9 @@ export async function adviceFor(db: Database, groupId: string): Promise<(GroupNo
   const notes = await adviceNotes(db, groupId);
   return notes.map((n) => {
     const cited = n.sources.filter((s) => !s.retired).map((s) => `“${s.title}”`);
-    const text = `${n.text} (Group advice for ${n.scope}${cited.length ? `; from ${cited.join(", ")}` : ""}.)`;
+    const when = n.causeCode ? `, when the likely cause is ${(CAUSES.find((c) => c.code === n.causeCode)?.title ?? n.causeCode).toLowerCase()}` : "";
+    // The emulsion screen appends "(cleared n of m in this group)" from `evidence`.
+    const text = `${n.text} — group advice for ${n.scope}${when}${cited.length ? `, from ${cited.join(", ")}` : ""}`;
     return {
       id: n.id,
       remedyId: n.remedyId,

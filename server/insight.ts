@@ -89,7 +89,8 @@ export async function groupInsight(db: Database, groupId: string, period: Period
   const byFamily: FamilyRemedies[] = [...families.entries()]
     .map(([solventFamily, remedies]) => {
       const list = [...remedies.entries()]
-        .map(([remedyId, c]) => ({ remedyId, remedyTitle: remedyTitle(remedyId), ...c, rate: c.cleared / c.tried }))
+        // The rate to 3 decimals: a screen shows it as a percentage to 1 decimal at most.
+        .map(([remedyId, c]) => ({ remedyId, remedyTitle: remedyTitle(remedyId), ...c, rate: Math.round((c.cleared / c.tried) * 1000) / 1000 }))
         .sort((x, y) => y.tried - x.tried || y.rate - x.rate || x.remedyId.localeCompare(y.remedyId));
       return { solventFamily, tried: list.reduce((s, x) => s + x.tried, 0), remedies: list };
     })

@@ -1,9 +1,13 @@
 import type { ComponentType } from "react";
 import type { GroupRole, MyGroup } from "../../hooks/use-me";
+import { AdviceSection } from "./advice-section";
 import { AuditSection } from "./audit-section";
+import { BackupSection } from "./backup-section";
 import { DigestSection } from "./digest-section";
+import { InsightSection } from "./insight-section";
 import { PeopleSection } from "./people-section";
 import { ReferenceSection } from "./reference-section";
+import { ReviewSection } from "./review-section";
 
 /** What every desk section receives. */
 export interface DeskSectionProps {
@@ -35,6 +39,10 @@ export const DESK_SECTIONS: DeskSection[] = [
   },
   { key: "audit", label: "Audit log", summary: "Every curation action: who, when, before and after; bring back an earlier version.", actsFrom: "lead", component: AuditSection },
   { key: "digest", label: "Digest", summary: "The weekly mail to leads: stubborn open cases and newly verified fixes.", actsFrom: "lead", component: DigestSection },
+  { key: "review", label: "Review", summary: "New and newly resolved cases: verify, ask the author for more, merge duplicates, retire.", actsFrom: "lead", component: ReviewSection },
+  { key: "advice", label: "Advice", summary: "The group's notes on remedies, each resting on verified cases; shown in the emulsion help.", actsFrom: "lead", component: AdviceSection },
+  { key: "insight", label: "Insight", summary: "What clears emulsions here, how long it takes, stubborn cases and solvents used, by period.", actsFrom: "chemist", component: InsightSection },
+  { key: "backup", label: "Backup", summary: "The whole group as one file, cases as CSV, and a backup brought into an empty group.", actsFrom: "lead", component: BackupSection },
 ];
 
 export function deskSection(key: string | undefined): DeskSection {

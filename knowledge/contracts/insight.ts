@@ -26,7 +26,7 @@ export interface RemedyRate {
   tried: number;
   cleared: number;
   partly: number;
-  /** cleared ÷ tried, 0–1 */
+  /** cleared ÷ tried, 0–1, to 3 decimals */
   rate: number;
 }
 

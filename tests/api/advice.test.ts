@@ -118,8 +118,8 @@ describe("the note in the emulsion help", () => {
     const pad = remedy(r, "filter-pad");
     expect(pad.groupNotes).toHaveLength(1);
     const text = pad.groupNotes![0]!.text;
-    expect(text).toMatch(/^In this group, filter through a pad of diatomaceous earth first\./);
-    expect(text).toContain("Group advice for halogenated solvents over strongly basic water (pH above 12)");
+    expect(text).toMatch(/^In this group, filter through a pad of diatomaceous earth first\. — /);
+    expect(text).toContain("group advice for halogenated solvents over strongly basic water (pH above 12)");
     expect(text).toContain("“Soapy band after saponification”");
     // cleared n of m travels beside the text (the hand count in beforeAll)
     expect(pad.groupNotes![0]).toMatchObject({ solventFamily: "halogenated", phBand: ">12", evidence: { cleared: 2, tried: 3 } });

@@ -99,7 +99,8 @@ describe("GET /api/insight", () => {
       ["let-stand", 2, 0, 0],
       ["saturated-brine", 1, 1, 0],
     ]);
-    expect(r.byFamily[0]!.remedies[0]!.rate).toBeCloseTo(2 / 3, 10);
+    // 2 of 3 = 0.6667, to 3 decimals
+    expect(r.byFamily[0]!.remedies[0]!.rate).toBe(0.667);
     // brine on esters: C3 partly, C3 cleared, C4 no change; centrifuge: C4 worse
     expect(r.byFamily[1]!.remedies.map((x) => [x.remedyId, x.tried, x.cleared, x.partly])).toEqual([
       ["saturated-brine", 3, 1, 1],
