@@ -14,11 +14,14 @@ export interface LoadFigure {
 
 export interface ComputeApiReport {
   connections: number;
+  /** one connection: the time a request takes to serve, without queueing behind 49 others */
+  serviceTime: LoadFigure[];
   durationS: number;
   /** mean of the bare route measured before and after the app's routes */
   bare: LoadFigure;
   bareRuns: LoadFigure[];
-  routes: (LoadFigure & { throughputRatio: number; registered: boolean })[];
+  /** registered: the route answered the sample body with 200 (status says what it answered) */
+  routes: (LoadFigure & { throughputRatio: number; registered: boolean; status: number })[];
 }
 
 /** A DCM / 10 % brine layer check (CRC values in tests/api/layers.test.ts). */
@@ -38,7 +41,7 @@ export const PLAN_BODY = {
   ],
   washes: [
     { aqueous: { solute: "HCl", concentration: { value: 1, unit: "mol/L" } }, volumeMl: 25, repeats: 2 },
-    { aqueous: { solute: "sat. sodium bicarbonate", concentration: "saturated" }, volumeMl: 25 },
+    { aqueous: { solute: "sodium bicarbonate", concentration: "saturated" }, volumeMl: 25 },
     { aqueous: { solute: "brine", concentration: "saturated" }, volumeMl: 25 },
   ],
   temperatureC: 20,
@@ -78,20 +81,24 @@ export async function benchComputeApi(opts: { connections: number; durationS: nu
   const { connections, durationS } = opts;
   const ready = /READY (\d+)/;
   const bareRuns: LoadFigure[] = [];
+  const bareService: LoadFigure[] = [];
   const measureBare = async () => {
     const { child, match } = await startChild(path.join(ROOT, "bench/servers/bare-server.ts"), { ready });
     try {
       const url = `http://127.0.0.1:${match[1]}/bare`;
       await load(url, LAYER_BODY, connections, Math.min(2, durationS)); // warm-up
       bareRuns.push(await load(url, LAYER_BODY, connections, durationS));
+      if (bareRuns.length === 1) bareService.push(await load(url, LAYER_BODY, 1, Math.min(3, durationS)));
     } finally {
       await child.stop();
     }
   };
 
+  const serviceTime: LoadFigure[] = [];
   await measureBare();
+  serviceTime.push(...bareService.splice(0));
   const { child, match } = await startChild(path.join(ROOT, "bench/servers/app-server.ts"), { ready });
-  const measured: { figure: LoadFigure; registered: boolean }[] = [];
+  const measured: { figure: LoadFigure; registered: boolean; status: number }[] = [];
   try {
     for (const [route, body] of [
       ["/api/layers/predict", LAYER_BODY],
@@ -100,11 +107,12 @@ export async function benchComputeApi(opts: { connections: number; durationS: nu
       const url = `http://127.0.0.1:${match[1]}${route}`;
       const status = await answers(url, body);
       if (status !== 200) {
-        measured.push({ figure: { route, requestsPerSec: 0, p50Ms: 0, p99Ms: 0, non2xx: 0, errors: 0 }, registered: false });
+        measured.push({ figure: { route, requestsPerSec: 0, p50Ms: 0, p99Ms: 0, non2xx: 0, errors: 0 }, registered: false, status });
         continue;
       }
       await load(url, body, connections, Math.min(2, durationS));
-      measured.push({ figure: await load(url, body, connections, durationS), registered: true });
+      serviceTime.push(await load(url, body, 1, Math.min(3, durationS)));
+      measured.push({ figure: await load(url, body, connections, durationS), registered: true, status });
     }
   } finally {
     await child.stop();
@@ -123,11 +131,13 @@ export async function benchComputeApi(opts: { connections: number; durationS: nu
   return {
     connections,
     durationS,
+    serviceTime,
     bare,
     bareRuns,
-    routes: measured.map(({ figure, registered }) => ({
+    routes: measured.map(({ figure, registered, status }) => ({
       ...figure,
       registered,
+      status,
       throughputRatio: registered ? figure.requestsPerSec / bare.requestsPerSec : 0,
     })),
   };

@@ -2,7 +2,8 @@ import fs from "node:fs";
 import http from "node:http";
 import path from "node:path";
 import type { AddressInfo } from "node:net";
-import { openDatabase } from "../db/client";
+import { sql } from "drizzle-orm";
+import { openDatabase, type Database } from "../db/client";
 import { createApp } from "../server/app";
 import { createRecordingMailer } from "../server/mail";
 import { SEARCH_QUERIES } from "./case-fixtures";
@@ -20,11 +21,34 @@ export interface SearchSize {
   /** p95 at this size ÷ p95 at the smallest size */
   growth: number;
   perQuery: { q: string; p50Ms: number; total: number }[];
+  /** the pieces of one broad search ("brine", most cases match), timed in SQL directly */
+  breakdown: { versionCheckMs: number; countMatchesMs: number; rankTop20Ms: number; matches: number };
 }
 
 export interface SearchReport {
   rounds: number;
   sizes: SearchSize[];
+}
+
+/** Where a broad search's time goes: the vocabulary version check, counting matches, ranking them all for the top 20. */
+async function breakdown(db: Database, groupId: string) {
+  const time = async (q: ReturnType<typeof sql>) => {
+    const runs: number[] = [];
+    let out: unknown;
+    for (let i = 0; i < 5; i++) {
+      const t0 = performance.now();
+      out = await db.execute(q);
+      runs.push(performance.now() - t0);
+    }
+    return { ms: percentile(runs, 50), rows: (out as { rows: Record<string, unknown>[] }).rows };
+  };
+  const tsq = sql`to_tsquery('simple', 'brine:*')`;
+  const version = await time(sql`select count(*), max(updated_at) from cases where group_id = ${groupId}`);
+  const counted = await time(sql`select count(*)::int as n from cases where group_id = ${groupId} and not retired and search_vector @@ ${tsq}`);
+  const ranked = await time(
+    sql`select id from cases where group_id = ${groupId} and not retired and search_vector @@ ${tsq} order by ts_rank(search_vector, ${tsq}) desc, occurred_at desc limit 20`,
+  );
+  return { versionCheckMs: version.ms, countMatchesMs: counted.ms, rankTop20Ms: ranked.ms, matches: Number(counted.rows[0]?.n ?? 0) };
 }
 
 /** A signed-in client of an app on loopback: fetch with the session cookie and our Origin. */
@@ -103,6 +127,7 @@ export async function benchSearch(tmp: string, opts: { sizes: number[]; rounds: 
         p95Ms: p95,
         growth: sizes.length ? p95 / sizes[0]!.p95Ms : 1,
         perQuery: [...perQuery.entries()].map(([q, e]) => ({ q, p50Ms: percentile(e.ms, 50), total: e.total })),
+        breakdown: await breakdown(handle.db, groupId),
       });
     }
     return { rounds: opts.rounds, sizes };

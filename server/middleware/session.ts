@@ -31,6 +31,7 @@ declare module "express-serve-static-core" {
 /** Resolves the signed-in user once per request (or leaves it undefined). */
 export function loadSession(auth: Auth): RequestHandler {
   return async (req, _res, next) => {
+    if (!req.headers.cookie) return next(); // no cookie, no session: anonymous checks skip the lookup
     const found = await auth.api.getSession({ headers: fromNodeHeaders(req.headers) });
     if (found) {
       req.user = { id: found.user.id, email: found.user.email, name: found.user.name };
