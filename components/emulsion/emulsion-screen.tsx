@@ -1,3 +1,4 @@
+import { useGroupReference } from "../../hooks/use-group-reference";
 import { useRouter } from "expo-router";
 import { useMemo, useState } from "react";
 import { StyleSheet, View } from "react-native";
@@ -54,7 +55,8 @@ export function EmulsionHelp({ owner }: { owner: string }) {
 
   const a = answers.value;
   const built = useMemo(() => buildRequest(a), [a]);
-  const local = useMemo(() => (built.ok ? computeLocally(built.request) : null), [built]);
+  const reference = useGroupReference();
+  const local = useMemo(() => (built.ok ? computeLocally(built.request, reference) : null), [built, reference]);
   const starts = useMemo(() => startingSystems(owner, recent.value), [owner, recent.value]);
   const [editingSystem, setEditingSystem] = useState(() => !built.ok);
 

@@ -1,3 +1,4 @@
+import { useGroupReference } from "../../hooks/use-group-reference";
 import { useLocalSearchParams, useRouter } from "expo-router";
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { Platform, StyleSheet, View } from "react-native";
@@ -65,7 +66,9 @@ export function LayerCheck({ owner }: LayerCheckProps) {
   const [formOpen, setFormOpen] = useState(() => evaluateDraft(draft.value).status !== "ok");
 
   const value = draft.value;
-  const evaluation = useMemo(() => evaluateDraft(value), [value]);
+  // A lead's corrections for the group take part in every computation here too.
+  const reference = useGroupReference();
+  const evaluation = useMemo(() => evaluateDraft(value, reference), [value, reference]);
   const checkParams = useMemo(() => draftToParams(value), [value]);
   const query = paramsToQuery(checkParams);
 
@@ -124,7 +127,7 @@ export function LayerCheck({ owner }: LayerCheckProps) {
     </View>
   ) : null;
 
-  const form = <SystemForm draft={value} onChange={draft.set} errors={evaluation.errors} />;
+  const form = <SystemForm draft={value} onChange={draft.set} errors={evaluation.errors} reference={reference} />;
   const systemCard =
     wide || formOpen ? (
       <View style={styles.stack}>

@@ -108,7 +108,7 @@ describe("Emulsion help", () => {
 
     // DCM boils at 39.6 °C: the 40 °C bath is ruled out, shown with its warning, never ranked
     const ruledOut = screen.getByTestId("emulsion-ruled-out");
-    expect(within(ruledOut).getByTestId("remedy-warm-bath-warning")).toHaveTextContent(/Do not warm: Dichloromethane boils at 39.6 °C/);
+    expect(within(ruledOut).getByTestId("remedy-warm-bath-warning")).toHaveTextContent(/Do not warm: dichloromethane boils at 39.6 °C/);
     expect(within(screen.getByTestId("remedy-warm-bath")).queryByLabelText(/^Number/)).toBeNull();
 
     // steps fold open, scaled to the funnel, with their sources
