@@ -2,6 +2,7 @@ import http from "node:http";
 import type { AddressInfo } from "node:net";
 import fc from "fast-check";
 import { sql } from "drizzle-orm";
+import pg from "pg";
 import { generatedCase } from "../../bench/case-fixtures";
 import { LAYER_BODY, PLAN_BODY } from "../../bench/http";
 import { ORIGIN, groupWithRoles, startTestApp, type TestApp } from "./harness";
@@ -45,8 +46,39 @@ interface Failure {
 }
 const failures: Failure[] = [];
 
+/**
+ * On PostgreSQL the API suites share one database, and other files' writes would trip the row
+ * triggers: this file takes a database of its own there, dropped afterwards.
+ */
+async function ownDatabase(shared: string) {
+  const name = `phasewise_fuzz_${Date.now().toString(36)}_${process.pid}`;
+  const admin = async (statement: string) => {
+    const c = new pg.Client({ connectionString: shared });
+    await c.connect();
+    try {
+      await c.query(statement);
+    } finally {
+      await c.end();
+    }
+  };
+  await admin(`create database ${name}`);
+  const url = new URL(shared);
+  url.pathname = `/${name}`;
+  return { url: url.toString(), drop: () => admin(`drop database if exists ${name} with (force)`) };
+}
+let own: Awaited<ReturnType<typeof ownDatabase>> | null = null;
+
 beforeAll(async () => {
-  t = await startTestApp();
+  const shared = process.env.PHASEWISE_TEST_DATABASE_URL;
+  if (shared) {
+    own = await ownDatabase(shared);
+    process.env.PHASEWISE_TEST_DATABASE_URL = own.url;
+  }
+  try {
+    t = await startTestApp();
+  } finally {
+    if (shared) process.env.PHASEWISE_TEST_DATABASE_URL = shared;
+  }
   server = http.createServer(t.app);
   await new Promise<void>((r) => server.listen(0, "127.0.0.1", r));
   base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
@@ -90,6 +122,7 @@ afterAll(async () => {
   server?.closeAllConnections();
   server?.close();
   await t?.close();
+  await own?.drop();
 });
 
 /** Rows of a raw query on PGlite and node-postgres alike. */
