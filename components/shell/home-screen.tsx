@@ -35,7 +35,7 @@ export function HomeScreen() {
       <View style={styles.grid}>
         {areas.map((a) => (
           <Link key={a.href} href={a.href as never} asChild>
-            <Pressable accessibilityRole="link" accessibilityLabel={a.label} style={styles.tile}>
+            <Pressable accessibilityRole="link" accessibilityLabel={a.label} style={styles.tile} testID={`home-${a.label.toLowerCase()}`}>
               <Icon name={a.icon} tone="brand" size={28} />
               <Text bold size="title">
                 {a.label}

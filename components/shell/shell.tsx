@@ -68,7 +68,7 @@ export function Shell({ children }: { children: React.ReactNode }) {
     <View style={styles.phoneRoot}>
       <View style={styles.content}>{children}</View>
       <View style={[styles.tabs, { paddingBottom: Math.max(insets.bottom, space.xs) }]} accessibilityRole="tablist" testID="tab-bar">
-        {NAV_ITEMS.map((item) => (
+        {NAV_ITEMS.filter((item) => item.phoneTab).map((item) => (
           <NavLink key={item.href} item={item} active={isActive(item, pathname)} wide={false} />
         ))}
       </View>

@@ -125,7 +125,7 @@ describe("solvent tables", () => {
       const { page } = b;
       await signIn(page, DEMO.chemist.email, DEMO.chemist.password);
       await page.getByTestId("tab-bar").waitFor();
-      await page.getByTestId("nav-solvents").click();
+      await page.getByTestId("home-solvents").click();
       await page.getByTestId("solvent-row-dichloromethane").waitFor();
       await shot(page, "solvents-phone");
 

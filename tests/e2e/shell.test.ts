@@ -15,12 +15,14 @@ describe("sign-in and the shell", () => {
       await page.getByTestId("tab-bar").waitFor();
       expect(await page.getByText("Hello, Kit").isVisible()).toBe(true);
       expect(await page.getByTestId("side-rail").count()).toBe(0);
+      // five tabs fit 390 px; the other areas are tiles on Home
+      expect(await page.getByTestId("tab-bar").getByRole("link").count()).toBe(5);
       await shot(page, "home-phone");
 
       await page.reload();
       await page.getByTestId("tab-bar").waitFor();
 
-      await page.getByTestId("nav-group").click();
+      await page.getByTestId("home-group").click();
       await page.getByText("Larchmere Process Group · you are chemist").waitFor();
       await page.getByTestId("member-lead@larchmere.example").waitFor();
       await shot(page, "group-phone");
