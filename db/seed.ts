@@ -3,6 +3,7 @@ import type { Auth } from "../server/auth";
 import type { Database } from "./client";
 import { member, organization, user } from "./schema";
 import { seedCases } from "./seed-cases";
+import { seedPlans } from "./seed-plans";
 
 /** The demo group: a fictional process-chemistry group and its three accounts. */
 export const DEMO_GROUP = { name: "Larchmere Process Group", slug: "larchmere-process" };
@@ -17,7 +18,7 @@ export interface SeedHook {
 }
 
 /** Extra demo content added by each area (cases, plans…), run once after the accounts exist. */
-export const DEMO_HOOKS: SeedHook[] = [seedCases];
+export const DEMO_HOOKS: SeedHook[] = [seedCases, seedPlans];
 
 export async function isEmpty(db: Database): Promise<boolean> {
   const rows = await db.select({ n: count() }).from(user);

@@ -1,0 +1,3 @@
+import { SavedPlanScreen } from "../../../components/plan/saved-plan-screen";
+
+export default SavedPlanScreen;

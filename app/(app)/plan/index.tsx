@@ -1,0 +1,3 @@
+import { PlanScreen } from "../../../components/plan/plan-screen";
+
+export default PlanScreen;

@@ -1,0 +1,3 @@
+import { BenchCardScreen } from "../../../components/plan/bench-card-screen";
+
+export default BenchCardScreen;

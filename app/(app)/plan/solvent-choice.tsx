@@ -1,0 +1,3 @@
+import { SolventChoiceScreen } from "../../../components/plan/solvent-choice-screen";
+
+export default SolventChoiceScreen;
