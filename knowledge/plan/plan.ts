@@ -108,7 +108,7 @@ function prepareComponent(c: PlanComponentInput, i: number): PreparedComponent {
     throw new KnowledgeInputError(`${field}.kind`, 'The kind is "acid", "base" or "neutral".');
   }
   if (c.kind !== "neutral" && (typeof c.pKa !== "number" || !Number.isFinite(c.pKa))) {
-    throw new KnowledgeInputError(`${field}.pKa`, `${c.name} is an ${c.kind}: give its pKa${c.kind === "base" ? " (of the conjugate acid)" : ""}.`);
+    throw new KnowledgeInputError(`${field}.pKa`, `${c.name} is ${c.kind === "acid" ? "an acid" : "a base"}: give its pKa${c.kind === "base" ? " (of the conjugate acid)" : ""}.`);
   }
   let K: { value: number; estimated: boolean };
   try {
