@@ -29,7 +29,7 @@ const port = await new Promise((resolve) => {
 const dataDir = mkdtempSync(path.join(os.tmpdir(), "phasewise-e2e-"));
 const baseURL = `http://localhost:${port}`;
 const server = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
-  env: { ...process.env, PORT: String(port), PHASEWISE_DATA_DIR: dataDir, PUBLIC_URL: baseURL, DATABASE_URL: "", PHASEWISE_WEB_DIR: webDir },
+  env: { ...process.env, PORT: String(port), PHASEWISE_DATA_DIR: dataDir, PUBLIC_URL: baseURL, DATABASE_URL: "", PHASEWISE_WEB_DIR: webDir, PHASEWISE_RATE_LIMIT: "0" },
   stdio: ["ignore", "pipe", "inherit"],
 });
 let log = "";

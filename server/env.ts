@@ -6,6 +6,8 @@ const schema = z.object({
   DATABASE_URL: z.string().url().optional(),
   PHASEWISE_DATA_DIR: z.string().default("./data"),
   PHASEWISE_DEMO: z.string().default("1"),
+  /** "0" turns the sign-in rate limit off (the browser suites sign in many times a minute). */
+  PHASEWISE_RATE_LIMIT: z.string().default("1"),
   /** Folder of the exported web app (default: dist/ beside the server). */
   PHASEWISE_WEB_DIR: z.string().optional(),
   BETTER_AUTH_SECRET: z.string().min(16).optional(),

@@ -37,6 +37,7 @@ async function main() {
     secret: env.BETTER_AUTH_SECRET,
     trustedOrigins: [`http://127.0.0.1:${env.PORT}`, `http://localhost:${env.PORT}`],
     dataDir: env.PHASEWISE_DATA_DIR,
+    rateLimit: { enabled: env.PHASEWISE_RATE_LIMIT !== "0" },
     webDir: env.PHASEWISE_WEB_DIR ?? path.join(__dirname, "..", "dist"),
     storage,
   });
