@@ -61,7 +61,7 @@ describe("emulsion help", () => {
       );
       await shot(page, "emulsion-after-line-phone");
       await page.getByTestId("emulsion-ruled-out").scrollIntoViewIfNeeded();
-      expect(await page.getByTestId("remedy-warm-bath-warning").innerText()).toMatch(/Do not warm: Dichloromethane boils at 39.6 °C/);
+      expect(await page.getByTestId("remedy-warm-bath-warning").innerText()).toMatch(/Do not warm: dichloromethane boils at 39.6 °C/);
       await shot(page, "emulsion-ruled-out-phone");
 
       await page.getByTestId("emulsion-start-case").scrollIntoViewIfNeeded();
