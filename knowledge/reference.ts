@@ -9,12 +9,22 @@ export const SHIPPED_REFERENCE: ReferenceData = { solvents: SOLVENTS, solutes: A
 
 /** Lower case, without spaces or punctuation: "1,2-DCE" → "12dce", "75-09-2" → "75092". */
 export function normaliseName(text: string): string {
-  return text
-    .normalize("NFKD")
-    .replace(/[\u0300-\u036f]/g, "")
-    .toLowerCase()
-    .replace(/[^a-z0-9]/g, "");
+  let normal = normalCache.get(text);
+  if (normal === undefined) {
+    normal = text
+      .normalize("NFKD")
+      .replace(/[\u0300-\u036f]/g, "")
+      .toLowerCase()
+      .replace(/[^a-z0-9]/g, "");
+    // The same few hundred names are looked up on every request: remember them, within bounds.
+    if (normalCache.size >= NORMAL_CACHE_MAX) normalCache.clear();
+    normalCache.set(text, normal);
+  }
+  return normal;
 }
+
+const NORMAL_CACHE_MAX = 4096;
+const normalCache = new Map<string, string>();
 
 interface Named {
   key: string;

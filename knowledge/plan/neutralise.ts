@@ -125,7 +125,10 @@ export function neutraliseExtract(input: NeutraliseInput, ref: ReferenceData = S
     const mixed = combineMixtures(extMix, V0, reaMix, reagentMl);
     return { ...mixed, systems: [...mixed.systems, ...components.map((c) => componentSystem(c, V0 + reagentMl))] };
   };
-  const phAfter = (reagentMl: number) => solvePh((pH) => netCharge(mixtureAfter(reagentMl), pH));
+  const phAfter = (reagentMl: number) => {
+    const mixture = mixtureAfter(reagentMl);
+    return solvePh((pH) => netCharge(mixture, pH));
+  };
   const startPh = phAfter(0);
   const passed = (pH: number) => (wantAcid ? pH <= targetPh : pH >= targetPh);
 
