@@ -1,6 +1,6 @@
 import fs from "node:fs";
 import path from "node:path";
-import express, { type Router } from "express";
+import express, { type RequestHandler, type Router } from "express";
 import helmet from "helmet";
 import { toNodeHandler } from "better-auth/node";
 import type { Database } from "../db/client";
@@ -50,6 +50,47 @@ export interface CreateAppOptions {
 /** Each area adds its router here (one line). Routers mount under /api. */
 const AREA_ROUTERS: ((deps: AppDeps) => Router)[] = [healthRouter, groupsRouter, solventsRouter, layersRouter, emulsionRouter, auditRouter, casesRouter, photosRouter, referenceRouter, plansRouter, evaporationRouter, solventChoiceRouter, adviceRouter, curationRouter, insightRouter, invitationsRouter, digestRouter, devOutboxRouter, backupRouter];
 
+interface RouteLayer {
+  route?: { path: unknown };
+}
+
+/**
+ * The area routers, dispatched by the first segment of the path: /api/layers/predict only walks
+ * the routers that have a route under /layers, instead of every area's routes in turn (Express
+ * tries each router's layers in order). A router with a path that starts with a parameter or a
+ * pattern is tried for every segment. Order among the routers is kept. `stack` lists every
+ * router's layers, so tools that read the app's routes from Express's stack still see them all.
+ */
+function areaDispatcher(routers: Router[]): RequestHandler & { stack: unknown[] } {
+  const everywhere = new Set<Router>();
+  const bySegment = new Map<string, Router[]>();
+  for (const router of routers) {
+    for (const layer of router.stack as RouteLayer[]) {
+      const path = layer.route?.path;
+      const segment = typeof path === "string" ? /^\/([A-Za-z0-9_.-]+)(?:\/|$)/.exec(path)?.[1] : undefined;
+      if (segment === undefined) everywhere.add(router);
+      else bySegment.set(segment.toLowerCase(), [...new Set([...(bySegment.get(segment.toLowerCase()) ?? []), router])]);
+    }
+  }
+  const ordered = (list: Iterable<Router>) => routers.filter((r) => new Set(list).has(r));
+  const fallback = ordered(everywhere);
+  const table = new Map([...bySegment].map(([segment, list]) => [segment, ordered([...list, ...everywhere])]));
+  const dispatch: RequestHandler = (req, res, next) => {
+    // Express matches paths case-insensitively; so does the table.
+    const segment = (/^\/([^/?#]*)/.exec(req.url)?.[1] ?? "").toLowerCase();
+    const list = table.get(segment) ?? fallback;
+    let i = 0;
+    const step = (err?: unknown) => {
+      if (err !== undefined && err !== null && err !== "router" && err !== "route") return next(err);
+      const router = list[i++];
+      if (!router) return next();
+      router(req, res, step);
+    };
+    step();
+  };
+  return Object.assign(dispatch, { stack: routers.flatMap((r) => r.stack) });
+}
+
 export function createApp(options: CreateAppOptions) {
   const baseURL = options.baseURL ?? "http://localhost:3000";
   const auth = createAuth({
@@ -74,6 +115,9 @@ export function createApp(options: CreateAppOptions) {
 
   const app = express();
   app.disable("x-powered-by");
+  // API answers are computed per request and nothing revalidates them: hashing every body for
+  // an ETag is wasted work. Static files and photos set their own validators.
+  app.set("etag", false);
   app.set("trust proxy", "loopback");
   app.use(
     helmet({
@@ -100,7 +144,7 @@ export function createApp(options: CreateAppOptions) {
   app.use("/api", sameOriginWrites([baseURL, ...(options.trustedOrigins ?? [])]));
   app.use(express.json({ limit: "1mb" }));
   app.use("/api", loadSession(auth));
-  for (const make of AREA_ROUTERS) app.use("/api", make(deps));
+  app.use("/api", areaDispatcher(AREA_ROUTERS.map((make) => make(deps))));
   app.use("/api", apiNotFound);
 
   if (options.webDir && fs.existsSync(path.join(options.webDir, "index.html"))) {
