@@ -11,7 +11,8 @@ import { Notice } from "../ui/notice";
 import { Screen } from "../ui/screen";
 import { Empty, ErrorState, Loading } from "../ui/states";
 import { BenchCard } from "./bench-card";
-import { draftFromDocument, evaluateEvaporation, evaluatePlan, evaluateRecovery, recoverySettingsOf, type PlanDraft } from "./plan-draft";
+import { draftFromDocument, recoverySettingsOf, type PlanDraft } from "./plan-draft";
+import { usePlanEvaluation } from "./use-plan-evaluation";
 import { washShortLabel } from "./plan-format";
 import { newPlanDraftKey } from "./plan-screen";
 
@@ -67,7 +68,8 @@ export function BenchCardScreen() {
     return stored ? { draft: stored.data, footnote: `Unsaved plan · printed ${formatDateTime(new Date().toISOString())}` } : null;
   }, [id, q.data, group]);
 
-  const evaluation = useMemo(() => (source ? evaluatePlan(source.draft) : null), [source]);
+  const computed = usePlanEvaluation(source?.draft ?? null);
+  const evaluation = computed.evaluation;
 
   let body: React.ReactNode;
   if (id && q.isPending) body = <Loading label="Loading the plan…" />;
@@ -80,8 +82,8 @@ export function BenchCardScreen() {
       </Notice>
     );
   else {
-    const recovery = evaluateRecovery(source.draft, evaluation);
-    const evaporation = evaluateEvaporation(source.draft, evaluation);
+    const recovery = computed.recovery!;
+    const evaporation = computed.evaporation!;
     const settings = recoverySettingsOf(source.draft).settings;
     body = (
       <BenchCard

@@ -1,5 +1,5 @@
 import { useRouter } from "expo-router";
-import { useMemo, useState } from "react";
+import { useState } from "react";
 import { StyleSheet, View } from "react-native";
 import { ApiError } from "../../hooks/api";
 import { space } from "../../hooks/theme";
@@ -14,7 +14,8 @@ import { Notice } from "../ui/notice";
 import { Screen } from "../ui/screen";
 import { Loading } from "../ui/states";
 import { Text } from "../ui/text";
-import { documentToSave, evaluatePlan, examplePlan, NEW_PLAN, type PlanDraft } from "./plan-draft";
+import { documentToSave, examplePlan, NEW_PLAN, type PlanDraft } from "./plan-draft";
+import { usePlanEvaluation } from "./use-plan-evaluation";
 import { PlanWorkbench } from "./plan-workbench";
 import { SavedPlans } from "./saved-plans";
 
@@ -76,7 +77,7 @@ function NewPlan({ userId, groupName }: { userId: string; groupName: string }) {
 function SaveNewPlan({ draft, set, onSaved }: { draft: PlanDraft; set: (next: (d: PlanDraft) => PlanDraft) => void; onSaved: (id: string) => void }) {
   const create = useCreatePlanMutation();
   const [problem, setProblem] = useState<string | null>(null);
-  const evaluation = useMemo(() => evaluatePlan(draft), [draft]);
+  const evaluation = usePlanEvaluation(draft).evaluation!;
   const doc = documentToSave(draft, evaluation);
   const save = () => {
     setProblem(null);

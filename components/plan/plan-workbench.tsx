@@ -1,4 +1,3 @@
-import { useMemo } from "react";
 import { StyleSheet, View } from "react-native";
 import { useLayout } from "../../hooks/breakpoints";
 import { space } from "../../hooks/theme";
@@ -6,7 +5,8 @@ import { Card } from "../ui/card";
 import { Notice } from "../ui/notice";
 import { Text } from "../ui/text";
 import { PlanBuilder } from "./plan-builder";
-import { evaluateEvaporation, evaluatePlan, evaluateRecovery, type PlanDraft } from "./plan-draft";
+import { type PlanDraft } from "./plan-draft";
+import { usePlanEvaluation } from "./use-plan-evaluation";
 import { EvaporationPanel, FunnelPanel, PassesPanel, RecoveryPanel } from "./plan-panels";
 import { PhSection, PlanAnswer, PlanBasis, PlanWarnings, StepTable } from "./plan-results";
 
@@ -25,9 +25,10 @@ export interface WorkbenchProps {
  */
 export function PlanWorkbench({ draft, set, top, bottom }: WorkbenchProps) {
   const wide = useLayout() === "wide";
-  const evaluation = useMemo(() => evaluatePlan(draft), [draft]);
-  const recovery = useMemo(() => evaluateRecovery(draft, evaluation), [draft, evaluation]);
-  const evaporation = useMemo(() => evaluateEvaporation(draft, evaluation), [draft, evaluation]);
+  const computed = usePlanEvaluation(draft);
+  const evaluation = computed.evaluation!;
+  const recovery = computed.recovery!;
+  const evaporation = computed.evaporation!;
   const errors = evaluation.errors;
 
   const results =

@@ -15,7 +15,8 @@ import { Notice } from "../ui/notice";
 import { Screen } from "../ui/screen";
 import { Empty, ErrorState, Loading } from "../ui/states";
 import { Text } from "../ui/text";
-import { documentToSave, draftFromDocument, evaluateEvaporation, evaluatePlan, evaluateRecovery, type PlanDraft } from "./plan-draft";
+import { documentToSave, draftFromDocument, type PlanDraft } from "./plan-draft";
+import { usePlanEvaluation } from "./use-plan-evaluation";
 import { EvaporationReadOnly, FunnelPanel, PassesPanel, RecoveryReadOnly } from "./plan-panels";
 import { PhSection, PlanAnswer, PlanBasis, PlanWarnings, StepTable } from "./plan-results";
 import { newPlanDraftKey } from "./plan-screen";
@@ -70,7 +71,7 @@ function EditPlan({ plan, userId }: { plan: SavedPlan; userId: string }) {
   const [confirming, setConfirming] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
-  const evaluation = useMemo(() => evaluatePlan(draft.value), [draft.value]);
+  const evaluation = usePlanEvaluation(draft.value).evaluation!;
   const staleDraft = draft.restoredAt && draft.restoredAt.getTime() < new Date(plan.updatedAt).getTime();
 
   const save = () => {
@@ -152,9 +153,10 @@ function EditPlan({ plan, userId }: { plan: SavedPlan; userId: string }) {
 function ReadPlan({ plan, userId }: { plan: SavedPlan; userId: string }) {
   const router = useRouter();
   const draft = useMemo(() => draftFromDocument(plan.input, plan.title, plan.notes), [plan]);
-  const evaluation = useMemo(() => evaluatePlan(draft), [draft]);
-  const recovery = useMemo(() => evaluateRecovery(draft, evaluation), [draft, evaluation]);
-  const evaporation = useMemo(() => evaluateEvaporation(draft, evaluation), [draft, evaluation]);
+  const computed = usePlanEvaluation(draft);
+  const evaluation = computed.evaluation!;
+  const recovery = computed.recovery!;
+  const evaporation = computed.evaporation!;
   return (
     <View style={styles.stack}>
       <Notice tone="info" title="Shared by the group" testID="plan-read-only">
