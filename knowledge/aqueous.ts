@@ -110,7 +110,7 @@ export const AQUEOUS_SOLUTES: AqueousSolute[] = [
     key: "sodium-bicarbonate",
     name: "Sodium bicarbonate",
     formula: "NaHCO3",
-    synonyms: ["NaHCO3", "bicarb", "sodium bicarbonate", "sodium hydrogen carbonate", "baking soda", "sat. NaHCO3", "sat. bicarb", "saturated bicarbonate", "saturated sodium bicarbonate", "aq. NaHCO3"],
+    synonyms: ["NaHCO3", "bicarb", "bicarbonate", "sodium bicarbonate", "sodium hydrogen carbonate", "baking soda", "sat. NaHCO3", "sat. bicarb", "saturated bicarbonate", "saturated sodium bicarbonate", "aq. NaHCO3"],
     cas: "144-55-8",
     molarMassGPerMol: 84.007,
     points: table(

@@ -222,8 +222,14 @@ export function suggestSolvents(query: string, ref: ReferenceData = SHIPPED_REFE
   return suggest(solventIndex(ref), query, limit);
 }
 
+/** "sat. ", "saturated ", "aq. ", "aqueous ": how a wash is named at the bench, not part of the solute's name. */
+const WASH_QUALIFIER = /^\s*(?:sat(?:urated)?|aq(?:ueous)?)\b\.?\s*/i;
+
 export function findSolute(query: string, ref: ReferenceData = SHIPPED_REFERENCE): AqueousSolute | undefined {
-  return find(soluteIndex(ref), query);
+  const hit = find(soluteIndex(ref), query);
+  if (hit || typeof query !== "string") return hit;
+  const bare = query.replace(WASH_QUALIFIER, "");
+  return bare !== query && bare.trim() !== "" ? findSolute(bare, ref) : undefined;
 }
 
 export function suggestSolutes(query: string, ref: ReferenceData = SHIPPED_REFERENCE, limit = 5): AqueousSolute[] {

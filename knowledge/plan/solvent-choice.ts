@@ -1,6 +1,7 @@
 import { aqueousDensityGPerMl, findSolvent, requireSolute, requireSolvent, SHIPPED_REFERENCE, solventDensityGPerMl } from "../reference";
 import { KnowledgeInputError, type Concentration, type GuideCategory, type ReferenceData, type Solvent } from "../types";
 import { vapourPressureMbar } from "./evaporation";
+import { TOO_CLOSE_DENSITY_DIFFERENCE_G_PER_ML } from "../layers";
 
 /** Best first, as the selection guide orders them. */
 export const GUIDE_ORDER: GuideCategory[] = ["recommended", "problematic", "hazardous", "highly-hazardous"];
@@ -78,6 +79,9 @@ function rankOne(s: Solvent, c: SolventConstraints, aqueousDensity: number, T: n
   if (c.organicLayer && delta !== null) {
     const isTop = delta < 0;
     if ((c.organicLayer === "top") !== isTop) failures.push(`the organic layer would be on the ${isTop ? "top" : "bottom"}`);
+    // The layer check's own threshold: closer than this, which layer ends up on top is a guess.
+    else if (Math.abs(delta) < TOO_CLOSE_DENSITY_DIFFERENCE_G_PER_ML)
+      failures.push(`within ${Math.abs(delta).toFixed(3)} g/mL of the aqueous phase: no sure ${c.organicLayer} layer`);
   }
   if (delta !== null) {
     reasons.push(`${delta < 0 ? "lighter" : "denser"} than the aqueous phase by ${Math.abs(delta).toFixed(3)} g/mL${Math.abs(delta) < SLOW_SPLIT_G_PER_ML ? " (slow split, order uncertain)" : ""}`);

@@ -86,3 +86,18 @@ describe("greener substitutes (Pfizer replacement table, Alfonsi et al. 2008, re
     expect(greenerSubstitutes("ethyl acetate").substitutes).toEqual([]);
   });
 });
+
+describe("a required layer position needs a sure split", () => {
+  it("does not offer anisole (0.995 g/mL at 20 °C, CRC) as a sure top layer over water (0.998 g/mL)", () => {
+    const anisole = rankSolvents({ organicLayer: "top" }).find((x) => x.key === "anisole");
+    expect(anisole).toBeDefined();
+    expect(Math.abs(anisole!.densityDifferenceGPerMl!)).toBeLessThan(0.03);
+    expect(anisole!.meetsConstraints).toBe(false);
+    expect(anisole!.failures.join(" ")).toMatch(/no sure top layer/);
+  });
+
+  it("still offers toluene (0.867 g/mL), well clear of water", () => {
+    const toluene = rankSolvents({ organicLayer: "top" }).find((x) => x.key === "toluene")!;
+    expect(toluene.meetsConstraints).toBe(true);
+  });
+});

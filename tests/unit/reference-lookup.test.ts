@@ -142,3 +142,21 @@ describe("solventDensityGPerMl", () => {
     expect(MAX_TEMPERATURE_C).toBe(60);
   });
 });
+
+describe("bench names of washes", () => {
+  it.each([
+    ["bicarbonate", "sodium-bicarbonate"],
+    ["sat. sodium bicarbonate", "sodium-bicarbonate"],
+    ["saturated NaHCO3", "sodium-bicarbonate"],
+    ["sat ammonium chloride", "ammonium-chloride"],
+    ["aq. NaOH", "sodium-hydroxide"],
+  ])("reads %s as %s (the qualifier says how strong, not what)", (typed, key) => {
+    expect(findSolute(typed)?.key).toBe(key);
+  });
+
+  it("does not read a bare qualifier, or a word that merely starts like one, as a solute", () => {
+    expect(findSolute("saturated")).toBeUndefined();
+    expect(findSolute("sat.")).toBeUndefined();
+    expect(findSolute("aqua regia")).toBeUndefined();
+  });
+});
