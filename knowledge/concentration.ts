@@ -1,4 +1,4 @@
-import { unit as mathUnit, type Unit } from "mathjs";
+import { unit as mathUnit, type Unit } from "./units";
 import type { AqueousSolute, Concentration, ConcentrationUnit, DensityPoint } from "./types";
 import { KnowledgeInputError } from "./types";
 
@@ -264,16 +264,17 @@ const BARE_NUMBER = new RegExp(String.raw`^${NUMBER}$`);
 function normaliseUnitText(text: string): string {
   return text
     .trim()
+    .replace(/\s+/g, " ") // a pasted no-break space reads as a space
     .replace(/(\d),(\d)/g, "$1.$2") // decimal comma
     .replace(/\s*[°º]\s*C\b/g, " degC")
     .replace(/\s*[°º]\s*F\b/g, " degF")
+    .replace(/[µμ](?=[A-Za-z])/g, "u") // micro sign or Greek mu before a unit: mathjs spells it "u"
     .replace(/(\d|\s)mM\b/g, "$1mmol/L")
-    .replace(/(\d|\s)µM\b/g, "$1umol/L")
+    .replace(/(\d|\s)uM\b/g, "$1umol/L")
     .replace(/(\d|\s)M\b/g, "$1mol/L")
     .replace(/\bmol\s*L-1\b/g, "mol/L")
     .replace(/\bg\s*L-1\b/g, "g/L")
-    .replace(/\bmL\b/gi, "mL")
-    .replace(/\bμL\b/g, "uL");
+    .replace(/\bmL\b/gi, "mL");
 }
 
 function kindOf(u: Unit): QuantityKind | undefined {

@@ -1,3 +1,3 @@
-import { GroupScreen } from "../../components/group/group-screen";
+import { areaScreen } from "../../components/shell/area-screen";
 
-export default GroupScreen;
+export default areaScreen("GroupScreen");

@@ -1,3 +1,3 @@
-import { CaseScreen } from "../../../components/cases/case-screen";
+import { areaScreen } from "../../../components/shell/area-screen";
 
-export default CaseScreen;
+export default areaScreen("CaseScreen");

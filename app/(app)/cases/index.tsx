@@ -1,3 +1,3 @@
-import { CasesScreen } from "../../../components/cases/cases-screen";
+import { areaScreen } from "../../../components/shell/area-screen";
 
-export default CasesScreen;
+export default areaScreen("CasesScreen");

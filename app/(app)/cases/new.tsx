@@ -1,3 +1,3 @@
-import { NewCaseScreen } from "../../../components/cases/new-case-screen";
+import { areaScreen } from "../../../components/shell/area-screen";
 
-export default NewCaseScreen;
+export default areaScreen("NewCaseScreen");

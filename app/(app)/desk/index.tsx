@@ -1,5 +1,3 @@
-import { DeskScreen } from "../../../components/desk/desk-screen";
+import { areaScreen } from "../../../components/shell/area-screen";
 
-export default function Desk() {
-  return <DeskScreen />;
-}
+export default areaScreen("DeskScreen");

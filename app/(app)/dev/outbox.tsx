@@ -1,5 +1,3 @@
-import { OutboxScreen } from "../../../components/dev/outbox-screen";
+import { areaScreen } from "../../../components/shell/area-screen";
 
-export default function Outbox() {
-  return <OutboxScreen />;
-}
+export default areaScreen("OutboxScreen");

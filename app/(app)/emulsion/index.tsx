@@ -1,3 +1,3 @@
-import { EmulsionScreen } from "../../../components/emulsion/emulsion-screen";
+import { areaScreen } from "../../../components/shell/area-screen";
 
-export default EmulsionScreen;
+export default areaScreen("EmulsionScreen");

@@ -1,3 +1,3 @@
-import { LayerCheckScreen } from "../../../components/layers/layer-check-screen";
+import { areaScreen } from "../../../components/shell/area-screen";
 
-export default LayerCheckScreen;
+export default areaScreen("LayerCheckScreen");

@@ -1,3 +1,3 @@
-import { SavedPlanScreen } from "../../../components/plan/saved-plan-screen";
+import { areaScreen } from "../../../components/shell/area-screen";
 
-export default SavedPlanScreen;
+export default areaScreen("SavedPlanScreen");

@@ -1,3 +1,3 @@
-import { PlanScreen } from "../../../components/plan/plan-screen";
+import { areaScreen } from "../../../components/shell/area-screen";
 
-export default PlanScreen;
+export default areaScreen("PlanScreen");

@@ -1,3 +1,3 @@
-import { BenchCardScreen } from "../../../components/plan/bench-card-screen";
+import { areaScreen } from "../../../components/shell/area-screen";
 
-export default BenchCardScreen;
+export default areaScreen("BenchCardScreen");

@@ -1,3 +1,3 @@
-import { SolventChoiceScreen } from "../../../components/plan/solvent-choice-screen";
+import { areaScreen } from "../../../components/shell/area-screen";
 
-export default SolventChoiceScreen;
+export default areaScreen("SolventChoiceScreen");

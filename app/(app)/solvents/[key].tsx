@@ -1,5 +1,7 @@
 import { useLocalSearchParams } from "expo-router";
-import { SolventsScreen } from "../../../components/solvents/solvents-screen";
+import { areaScreen } from "../../../components/shell/area-screen";
+
+const SolventsScreen = areaScreen("SolventsScreen");
 
 export default function SolventRoute() {
   const { key } = useLocalSearchParams<{ key: string }>();

@@ -1,5 +1,3 @@
-import { SolventsScreen } from "../../../components/solvents/solvents-screen";
+import { areaScreen } from "../../../components/shell/area-screen";
 
-export default function SolventsRoute() {
-  return <SolventsScreen />;
-}
+export default areaScreen("SolventsScreen");
