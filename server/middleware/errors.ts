@@ -1,5 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from "express";
-import { ZodError } from "zod";
+import { z } from "zod";
 import { KnowledgeInputError } from "../../knowledge/types";
 
 /** A typed HTTP error; the one error handler turns it into `{ error: { code, message, fields? } }`. */
@@ -22,7 +22,7 @@ export const forbidden = (message = "Your role in this group does not allow that
   new HttpError(403, "forbidden", message);
 export const notFound = (what = "That record") => new HttpError(404, "not_found", `${what} was not found.`);
 
-export function zodFields(error: ZodError): Record<string, string> {
+export function zodFields(error: z.core.$ZodError): Record<string, string> {
   const fields: Record<string, string> = {};
   for (const issue of error.issues) {
     const key = issue.path.length ? issue.path.map(String).join(".") : "body";
@@ -47,7 +47,8 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
     res.status(err.status).json({ error: { code: err.code, message: err.message, fields: err.fields, ...err.extra } });
     return;
   }
-  if (err instanceof ZodError) {
+  // $ZodError: errors of classic schemas and of the contracts' zod/mini schemas alike
+  if (err instanceof z.core.$ZodError) {
     const fields = zodFields(err);
     res.status(400).json({ error: { code: "bad_request", message: "Some fields need attention.", fields } });
     return;

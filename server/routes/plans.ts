@@ -52,8 +52,8 @@ export function computePlanResponse(doc: PlanDocument, ref: ReferenceData): Plan
   return out;
 }
 
-function parseBody<S extends z.ZodType>(schema: S, body: unknown): z.output<S> {
-  const parsed = schema.safeParse(body);
+function parseBody<S extends z.core.$ZodType>(schema: S, body: unknown): z.output<S> {
+  const parsed = z.safeParse(schema, body);
   // "washes[0].volumeMl": the same field names the knowledge module's errors use
   if (!parsed.success) throw badRequest("Some fields need attention.", fieldErrors(parsed.error));
   return parsed.data;
