@@ -1,4 +1,4 @@
-import { z } from "zod";
+import * as z from "./zod";
 import type { CatalogueEntry } from "../emulsion/catalogue";
 import type { CauseResult, GroupNote, RemedyResult, TroubleshootResult } from "../emulsion/diagnose";
 import type { RemedyId, TroubleshootInput } from "../emulsion/model";
@@ -10,73 +10,73 @@ import { layerPredictRequestSchema } from "./layers";
 /*
  * Emulsion help's request and response, shared by POST /api/troubleshoot, the remedy catalogue
  * routes and the Emulsion screen (which checks its answers with the same schema before
- * computing in the browser). Pure zod and TypeScript; field names are the API.
+ * computing in the browser). Pure zod/mini and TypeScript; field names are the API.
  */
 
 /** Same limits as the layer check; the temperature defaults to a room-temperature funnel. */
 export const emulsionSystemSchema = z.object({
   organic: layerPredictRequestSchema.shape.organic,
   aqueous: layerPredictRequestSchema.shape.aqueous,
-  temperatureC: layerPredictRequestSchema.shape.temperatureC.default(20),
+  temperatureC: z._default(layerPredictRequestSchema.shape.temperatureC, 20),
 });
 
 export const SHAKING = ["gentle", "normal", "vigorous"] as const;
 
-const flag = z.boolean({ error: "Use true or false." }).optional();
+const flag = z.optional(z.boolean({ error: "Use true or false." }));
 
 export const seenSchema = z.object({
-  emulsionFractionPct: z
-    .number({ error: "The emulsified share must be a number of %." })
-    .min(0, { error: "The emulsified share must be 0–100 %." })
-    .max(100, { error: "The emulsified share must be 0–100 %." })
-    .optional(),
+  emulsionFractionPct: z.optional(
+    z
+      .number({ error: "The emulsified share must be a number of %." })
+      .check(z.minimum(0, { error: "The emulsified share must be 0–100 %." }), z.maximum(100, { error: "The emulsified share must be 0–100 %." })),
+  ),
   solids: flag,
-  colour: z.string().trim().max(60, { error: "Keep the colour under 60 characters." }).optional(),
+  colour: z.optional(z.string().check(z.trim(), z.maxLength(60, { error: "Keep the colour under 60 characters." }))),
   thirdLayer: flag,
   cloudyOrganic: flag,
   foamOrBubbles: flag,
   afterSeparation: flag,
 });
 
-const shortName = z.string().trim().min(1, { error: "Leave no empty names." }).max(80, { error: "That name is too long." });
+const shortName = z.string().check(z.trim(), z.minLength(1, { error: "Leave no empty names." }), z.maxLength(80, { error: "That name is too long." }));
 
 export const knownSchema = z.object({
-  ph: z
-    .number({ error: "The pH must be a number." })
-    .min(-2, { error: "The pH must lie between −2 and 16." })
-    .max(16, { error: "The pH must lie between −2 and 16." })
-    .optional(),
-  coSolvents: z.array(shortName).max(8, { error: "At most 8 co-solvents." }).optional(),
+  ph: z.optional(
+    z
+      .number({ error: "The pH must be a number." })
+      .check(z.minimum(-2, { error: "The pH must lie between −2 and 16." }), z.maximum(16, { error: "The pH must lie between −2 and 16." })),
+  ),
+  coSolvents: z.optional(z.array(shortName).check(z.maxLength(8, { error: "At most 8 co-solvents." }))),
   /** reagent tags (REAGENT_TAGS); unknown tags are ignored by the ranking */
-  reagents: z.array(shortName).max(20, { error: "At most 20 reagent tags." }).optional(),
-  shaking: z.enum(SHAKING, { error: "Shaking is gentle, normal or vigorous." }).optional(),
-  minutesWaited: z
-    .number({ error: "Minutes waited must be a number." })
-    .min(0, { error: "Minutes waited must be zero or more." })
-    .max(100_000, { error: "Minutes waited must be at most 100 000." })
-    .optional(),
+  reagents: z.optional(z.array(shortName).check(z.maxLength(20, { error: "At most 20 reagent tags." }))),
+  shaking: z.optional(z.enum(SHAKING, { error: "Shaking is gentle, normal or vigorous." })),
+  minutesWaited: z.optional(
+    z
+      .number({ error: "Minutes waited must be a number." })
+      .check(z.minimum(0, { error: "Minutes waited must be zero or more." }), z.maximum(100_000, { error: "Minutes waited must be at most 100 000." })),
+  ),
   viscous: flag,
-  funnelMl: z
-    .number({ error: "The funnel size must be a number of mL." })
-    .positive({ error: "The funnel size must be more than 0 mL." })
-    .max(100_000, { error: "The funnel size must be at most 100 000 mL." })
-    .optional(),
+  funnelMl: z.optional(
+    z
+      .number({ error: "The funnel size must be a number of mL." })
+      .check(z.positive({ error: "The funnel size must be more than 0 mL." }), z.maximum(100_000, { error: "The funnel size must be at most 100 000 mL." })),
+  ),
 });
 
 export const componentSchema = z.object({
   name: shortName,
   kind: z.enum(["acid", "base", "neutral"], { error: "A component is an acid, a base or neutral." }),
   /** for a base, the pKa of its conjugate acid */
-  pKa: z.number({ error: "The pKa must be a number." }).min(-15).max(60).optional(),
-  partitionCoefficient: z.number({ error: "The partition coefficient must be a number." }).positive().optional(),
-  logP: z.number({ error: "log P must be a number." }).min(-10).max(20).optional(),
+  pKa: z.optional(z.number({ error: "The pKa must be a number." }).check(z.minimum(-15), z.maximum(60))),
+  partitionCoefficient: z.optional(z.number({ error: "The partition coefficient must be a number." }).check(z.positive())),
+  logP: z.optional(z.number({ error: "log P must be a number." }).check(z.minimum(-10), z.maximum(20))),
 });
 
 export const troubleshootRequestSchema = z.object({
   system: emulsionSystemSchema,
-  seen: seenSchema.default({}),
-  known: knownSchema.default({}),
-  components: z.array(componentSchema).max(20, { error: "At most 20 components." }).optional(),
+  seen: z._default(seenSchema, {}),
+  known: z._default(knownSchema, {}),
+  components: z.optional(z.array(componentSchema).check(z.maxLength(20, { error: "At most 20 components." }))),
 });
 
 export type TroubleshootRequest = z.input<typeof troubleshootRequestSchema>;

@@ -1,4 +1,4 @@
-import { z } from "zod";
+import * as z from "./zod";
 import type { NeutraliseResult } from "../plan/neutralise";
 import { neutraliseExtract } from "../plan/neutralise";
 import type { EvaporationSettings } from "../plan/evaporation";
@@ -23,46 +23,57 @@ export const PLAN_TITLE_MAX = 120;
 export const PLAN_NOTES_MAX = 4000;
 
 const name = (what: string) =>
-  z.string({ error: `Name the ${what}.` }).trim().min(1, { error: `Name the ${what}.` }).max(120, { error: "That name is too long." });
+  z.string({ error: `Name the ${what}.` }).check(z.trim(), z.minLength(1, { error: `Name the ${what}.` }), z.maxLength(120, { error: "That name is too long." }));
 
-const number = (what: string) =>
-  z.number({ error: `${what} must be a number.` }).finite({ error: `${what} must be a number.` });
+const number = (what: string) => z.number({ error: `${what} must be a number.` });
 
-const volumeMl = number("The volume")
-  .positive({ error: "The volume must be more than 0 mL." })
-  .max(MAX_PHASE_VOLUME_ML, { error: `The volume must be at most ${MAX_PHASE_VOLUME_ML} mL.` });
+const volumeMl = number("The volume").check(
+  z.positive({ error: "The volume must be more than 0 mL." }),
+  z.maximum(MAX_PHASE_VOLUME_ML, { error: `The volume must be at most ${MAX_PHASE_VOLUME_ML} mL.` }),
+);
 
-const temperatureC = number("The temperature")
-  .min(MIN_TEMPERATURE_C, { error: `Plans cover ${MIN_TEMPERATURE_C}–${MAX_TEMPERATURE_C} °C.` })
-  .max(MAX_TEMPERATURE_C, { error: `Plans cover ${MIN_TEMPERATURE_C}–${MAX_TEMPERATURE_C} °C.` });
+const temperatureC = number("The temperature").check(
+  z.minimum(MIN_TEMPERATURE_C, { error: `Plans cover ${MIN_TEMPERATURE_C}–${MAX_TEMPERATURE_C} °C.` }),
+  z.maximum(MAX_TEMPERATURE_C, { error: `Plans cover ${MIN_TEMPERATURE_C}–${MAX_TEMPERATURE_C} °C.` }),
+);
 
 /** pKa values in water lie within about −10 to 50; anything outside is a typing slip. */
-const pKa = number("The pKa").min(-10, { error: "A pKa below −10 is not plausible in water." }).max(50, { error: "A pKa above 50 is not plausible." });
+const pKa = number("The pKa").check(
+  z.minimum(-10, { error: "A pKa below −10 is not plausible in water." }),
+  z.maximum(50, { error: "A pKa above 50 is not plausible." }),
+);
 
 export const planComponentSchema = z.object({
   name: name("component"),
   kind: z.enum(["acid", "base", "neutral"], { error: 'The kind is "acid", "base" or "neutral".' }),
   /** for a base, the pKa of its conjugate acid */
-  pKa: pKa.optional(),
-  partitionCoefficient: number("K").nonnegative({ error: "K cannot be negative." }).max(1e12, { error: "K above 10¹² is not plausible." }).optional(),
-  logP: number("log P").min(-10, { error: "log P must lie between −10 and 15." }).max(15, { error: "log P must lie between −10 and 15." }).optional(),
-  amountMmol: number("The amount").nonnegative({ error: "The amount cannot be negative." }).max(1e7).optional(),
-  amountG: number("The mass").nonnegative({ error: "The mass cannot be negative." }).max(1e5).optional(),
-  molarMassGPerMol: number("The molar mass").positive({ error: "The molar mass must be above 0 g/mol." }).max(1e5).optional(),
+  pKa: z.optional(pKa),
+  partitionCoefficient: z.optional(
+    number("K").check(z.nonnegative({ error: "K cannot be negative." }), z.maximum(1e12, { error: "K above 10¹² is not plausible." })),
+  ),
+  logP: z.optional(
+    number("log P").check(z.minimum(-10, { error: "log P must lie between −10 and 15." }), z.maximum(15, { error: "log P must lie between −10 and 15." })),
+  ),
+  amountMmol: z.optional(number("The amount").check(z.nonnegative({ error: "The amount cannot be negative." }), z.maximum(1e7))),
+  amountG: z.optional(number("The mass").check(z.nonnegative({ error: "The mass cannot be negative." }), z.maximum(1e5))),
+  molarMassGPerMol: z.optional(number("The molar mass").check(z.positive({ error: "The molar mass must be above 0 g/mol." }), z.maximum(1e5))),
 });
 
 export const planWashSchema = z.object({
   aqueous: z.object(
-    { solute: name('wash ("HCl", "NaHCO3", "brine" …)'), concentration: concentrationSchema.optional() },
+    { solute: name('wash ("HCl", "NaHCO3", "brine" …)'), concentration: z.optional(concentrationSchema) },
     { error: "Name the wash's aqueous solution." },
   ),
   volumeMl,
-  repeats: z
-    .number({ error: "Repeats must be a whole number." })
-    .int({ error: "Repeats must be a whole number." })
-    .min(1, { error: `Repeats are a whole number from 1 to ${MAX_REPEATS}.` })
-    .max(MAX_REPEATS, { error: `Repeats are a whole number from 1 to ${MAX_REPEATS}.` })
-    .optional(),
+  repeats: z.optional(
+    z
+      .number({ error: "Repeats must be a whole number." })
+      .check(
+        z.int({ error: "Repeats must be a whole number." }),
+        z.minimum(1, { error: `Repeats are a whole number from 1 to ${MAX_REPEATS}.` }),
+        z.maximum(MAX_REPEATS, { error: `Repeats are a whole number from 1 to ${MAX_REPEATS}.` }),
+      ),
+  ),
 });
 
 /** Recovering a component from the combined extracts of one wash (the bench card's last step). */
@@ -70,34 +81,35 @@ export const recoverySettingsSchema = z.object({
   /** name of an acid or base component of the plan */
   component: name("component to recover"),
   /** index of the wash whose extracts are combined; the wash that took most of it when absent */
-  wash: z.number().int().min(0).optional(),
+  wash: z.optional(z.number().check(z.int(), z.minimum(0))),
   reagent: z.object({ solute: name("reagent"), concentration: concentrationSchema }, { error: "Name the reagent stock and its concentration." }),
   /** default two units past the pKa on the neutral side */
-  targetPh: number("The target pH").min(-2).max(16).optional(),
+  targetPh: z.optional(number("The target pH").check(z.minimum(-2), z.maximum(16))),
 });
 
 export const evaporationPanelSchema = z
   .object({
-    vaporTemperatureC: number("The vapour temperature").optional(),
-    pressureMbar: number("The pressure").positive({ error: "The pressure must be above 0 mbar." }).optional(),
+    vaporTemperatureC: z.optional(number("The vapour temperature")),
+    pressureMbar: z.optional(number("The pressure").check(z.positive({ error: "The pressure must be above 0 mbar." }))),
   })
-  .refine((e) => (e.vaporTemperatureC === undefined) !== (e.pressureMbar === undefined), {
-    error: "Give a vapour temperature or a pressure (one of them).",
-  });
+  .check(
+    z.refine((e) => (e.vaporTemperatureC === undefined) !== (e.pressureMbar === undefined), {
+      error: "Give a vapour temperature or a pressure (one of them).",
+    }),
+  );
 
 /** POST /api/plans/compute, and the `input` of a saved plan. */
 export const planComputeRequestSchema = z.object({
   organic: z.object({ solvent: name("organic solvent"), volumeMl }, { error: "Give the organic solvent and its volume." }),
   components: z
     .array(planComponentSchema, { error: "Components are a list." })
-    .max(MAX_PLAN_COMPONENTS, { error: `At most ${MAX_PLAN_COMPONENTS} components.` }),
+    .check(z.maxLength(MAX_PLAN_COMPONENTS, { error: `At most ${MAX_PLAN_COMPONENTS} components.` })),
   washes: z
     .array(planWashSchema, { error: "Washes are a list." })
-    .min(1, { error: "Add at least one wash." })
-    .max(MAX_PLAN_WASHES, { error: `At most ${MAX_PLAN_WASHES} washes.` }),
-  temperatureC: temperatureC.default(20),
-  recovery: recoverySettingsSchema.optional(),
-  evaporation: evaporationPanelSchema.optional(),
+    .check(z.minLength(1, { error: "Add at least one wash." }), z.maxLength(MAX_PLAN_WASHES, { error: `At most ${MAX_PLAN_WASHES} washes.` })),
+  temperatureC: z._default(temperatureC, 20),
+  recovery: z.optional(recoverySettingsSchema),
+  evaporation: z.optional(evaporationPanelSchema),
 });
 
 export type PlanComputeRequest = z.input<typeof planComputeRequestSchema>;
@@ -227,29 +239,31 @@ export interface PlanComputeResponse extends PlanResult {
 export const evaporationRequestSchema = z
   .object({
     solvent: name("solvent"),
-    vaporTemperatureC: number("The vapour temperature").optional(),
-    pressureMbar: number("The pressure").positive({ error: "The pressure must be above 0 mbar." }).optional(),
+    vaporTemperatureC: z.optional(number("The vapour temperature")),
+    pressureMbar: z.optional(number("The pressure").check(z.positive({ error: "The pressure must be above 0 mbar." }))),
   })
-  .refine((e) => (e.vaporTemperatureC === undefined) !== (e.pressureMbar === undefined), {
-    error: "Give either a vapour temperature (°C) or a pressure (mbar), not both.",
-    path: ["vaporTemperatureC"],
-  });
+  .check(
+    z.refine((e) => (e.vaporTemperatureC === undefined) !== (e.pressureMbar === undefined), {
+      error: "Give either a vapour temperature (°C) or a pressure (mbar), not both.",
+      path: ["vaporTemperatureC"],
+    }),
+  );
 export type EvaporationRequest = z.input<typeof evaporationRequestSchema>;
 export interface EvaporationResponse extends EvaporationSettings {
   sourceTitles: SourceRef[];
 }
 
 export const solventRankRequestSchema = z.object({
-  immiscibleWithWater: z.boolean().optional(),
-  organicLayer: z.enum(["top", "bottom"], { error: 'The organic layer is "top" or "bottom".' }).optional(),
-  aqueous: z.object({ solute: name("aqueous phase"), concentration: concentrationSchema.optional() }).optional(),
-  temperatureC: temperatureC.optional(),
-  bpMinC: number("The lowest boiling point").min(-50).max(300).optional(),
-  bpMaxC: number("The highest boiling point").min(-50).max(300).optional(),
-  noHalogen: z.boolean().optional(),
-  noPeroxideFormer: z.boolean().optional(),
-  minGuideCategory: z.enum(GUIDE_ORDER as [string, ...string[]], { error: `The guide category is one of ${GUIDE_ORDER.join(", ")}.` }).optional(),
-  candidates: z.array(name("solvent")).max(60).optional(),
+  immiscibleWithWater: z.optional(z.boolean()),
+  organicLayer: z.optional(z.enum(["top", "bottom"], { error: 'The organic layer is "top" or "bottom".' })),
+  aqueous: z.optional(z.object({ solute: name("aqueous phase"), concentration: z.optional(concentrationSchema) })),
+  temperatureC: z.optional(temperatureC),
+  bpMinC: z.optional(number("The lowest boiling point").check(z.minimum(-50), z.maximum(300))),
+  bpMaxC: z.optional(number("The highest boiling point").check(z.minimum(-50), z.maximum(300))),
+  noHalogen: z.optional(z.boolean()),
+  noPeroxideFormer: z.optional(z.boolean()),
+  minGuideCategory: z.optional(z.enum(GUIDE_ORDER as [string, ...string[]], { error: `The guide category is one of ${GUIDE_ORDER.join(", ")}.` })),
+  candidates: z.optional(z.array(name("solvent")).check(z.maxLength(60))),
 });
 export type SolventRankRequest = z.input<typeof solventRankRequestSchema>;
 export interface SolventRankResponse {
@@ -262,15 +276,19 @@ export type SubstitutesResponse = SubstituteAdvice & { sourceTitles: SourceRef[]
 
 const title = z
   .string({ error: "Give the plan a title." })
-  .trim()
-  .min(1, { error: "Give the plan a title." })
-  .max(PLAN_TITLE_MAX, { error: `Keep the title under ${PLAN_TITLE_MAX} characters.` });
-const notes = z.string({ error: "Notes are text." }).max(PLAN_NOTES_MAX, { error: `Keep the notes under ${PLAN_NOTES_MAX} characters.` });
+  .check(
+    z.trim(),
+    z.minLength(1, { error: "Give the plan a title." }),
+    z.maxLength(PLAN_TITLE_MAX, { error: `Keep the title under ${PLAN_TITLE_MAX} characters.` }),
+  );
+const notes = z.string({ error: "Notes are text." }).check(z.maxLength(PLAN_NOTES_MAX, { error: `Keep the notes under ${PLAN_NOTES_MAX} characters.` }));
 
-export const createPlanSchema = z.object({ title, notes: notes.optional(), input: planComputeRequestSchema });
+export const createPlanSchema = z.object({ title, notes: z.optional(notes), input: planComputeRequestSchema });
 export const patchPlanSchema = z
-  .object({ title: title.optional(), notes: notes.optional(), input: planComputeRequestSchema.optional() })
-  .refine((p) => p.title !== undefined || p.notes !== undefined || p.input !== undefined, { error: "Change at least one of title, notes or input." });
+  .object({ title: z.optional(title), notes: z.optional(notes), input: z.optional(planComputeRequestSchema) })
+  .check(
+    z.refine((p) => p.title !== undefined || p.notes !== undefined || p.input !== undefined, { error: "Change at least one of title, notes or input." }),
+  );
 export type CreatePlanBody = z.input<typeof createPlanSchema>;
 export type PatchPlanBody = z.input<typeof patchPlanSchema>;
 
