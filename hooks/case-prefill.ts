@@ -1,4 +1,4 @@
-import { z } from "zod";
+import * as z from "../knowledge/contracts/zod";
 
 /*
  * The "Start a case" hand-off: the Layers and Emulsion screens put the system they are showing
@@ -9,24 +9,26 @@ import { z } from "zod";
 
 const concentration = z.union([
   z.literal("saturated"),
-  z.object({ value: z.number().finite().nonnegative(), unit: z.enum(["mol/L", "%w/w", "g/L"]) }),
+  z.object({ value: z.number().check(z.nonnegative()), unit: z.enum(["mol/L", "%w/w", "g/L"]) }),
 ]);
 
-const organicPart = z.object({ solvent: z.string().trim().min(1).max(120), volumeMl: z.number().finite().positive().max(100_000) });
+const name = z.string().check(z.trim(), z.minLength(1), z.maxLength(120));
+const volumeMl = z.number().check(z.positive(), z.maximum(100_000));
+const organicPart = z.object({ solvent: name, volumeMl });
 const aqueous = z.object({
-  solute: z.string().trim().min(1).max(120),
-  concentration: concentration.optional(),
-  volumeMl: z.number().finite().positive().max(100_000),
+  solute: name,
+  concentration: z.optional(concentration),
+  volumeMl,
 });
 
 /** What the emulsion screen has seen; the same names as knowledge/emulsion's `Seen`. */
 const seen = z.object({
-  emulsionFractionPct: z.number().finite().min(0).max(100).optional(),
-  solids: z.boolean().optional(),
-  colour: z.string().trim().max(80).optional(),
-  thirdLayer: z.boolean().optional(),
-  cloudyOrganic: z.boolean().optional(),
-  foamOrBubbles: z.boolean().optional(),
+  emulsionFractionPct: z.optional(z.number().check(z.minimum(0), z.maximum(100))),
+  solids: z.optional(z.boolean()),
+  colour: z.optional(z.string().check(z.trim(), z.maxLength(80))),
+  thirdLayer: z.optional(z.boolean()),
+  cloudyOrganic: z.optional(z.boolean()),
+  foamOrBubbles: z.optional(z.boolean()),
 });
 
 export type PrefillConcentration = z.infer<typeof concentration>;
@@ -71,7 +73,7 @@ export function caseStartHref(prefill: CasePrefill): string {
   return `/cases/new?${PREFILL_PARAM}=${encodeURIComponent(encodeCasePrefill(prefill))}`;
 }
 
-function pick<T>(schema: z.ZodType<T>, value: unknown): T | undefined {
+function pick<T>(schema: z.ZodMiniType<T>, value: unknown): T | undefined {
   const r = schema.safeParse(value);
   return r.success ? r.data : undefined;
 }
@@ -103,7 +105,7 @@ export function decodeCasePrefill(raw: string | string[] | undefined | null): Ca
   }
   const aq = pick(aqueous, o.aqueous);
   if (aq) out.aqueous = aq;
-  const t = pick(z.number().finite().min(-80).max(200), o.temperatureC);
+  const t = pick(z.number().check(z.minimum(-80), z.maximum(200)), o.temperatureC);
   if (t !== undefined) out.temperatureC = t;
   if (typeof o.seen === "object" && o.seen !== null) {
     // Field by field, so one bad observation does not drop the others.
@@ -111,7 +113,7 @@ export function decodeCasePrefill(raw: string | string[] | undefined | null): Ca
     const shape = seen.shape;
     const src = o.seen as Record<string, unknown>;
     for (const key of Object.keys(shape) as (keyof PrefillSeen)[]) {
-      const v = pick(shape[key] as z.ZodType<unknown>, src[key]);
+      const v = pick(shape[key] as z.ZodMiniType<unknown>, src[key]);
       if (v !== undefined) (s as Record<string, unknown>)[key] = v;
     }
     if (Object.keys(s).length) out.seen = s;
@@ -124,7 +126,7 @@ export function decodeCasePrefill(raw: string | string[] | undefined | null): Ca
     const causes = o.causes.filter((x): x is string => typeof x === "string" && /^[a-z0-9][a-z0-9-]{0,59}$/.test(x));
     if (causes.length) out.causes = [...new Set(causes)].slice(0, MAX_CAUSES);
   }
-  const title = pick(z.string().trim().min(1).max(160), o.title);
+  const title = pick(z.string().check(z.trim(), z.minLength(1), z.maxLength(160)), o.title);
   if (title) out.title = title;
   return Object.keys(out).length ? out : null;
 }

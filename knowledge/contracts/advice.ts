@@ -1,4 +1,4 @@
-import { z } from "zod";
+import * as z from "./zod";
 import { CAUSE_CODES } from "../emulsion/model";
 import { PH_BANDS, type CasePhBand } from "./cases";
 import type { PersonRef } from "./curation";
@@ -58,50 +58,57 @@ export function adviceScope(n: { solventFamily: string | null; phBand: string | 
 
 const noteText = z
   .string({ message: "Write the note." })
-  .trim()
-  .min(10, "Write the note in a sentence (at least 10 characters).")
-  .max(600, "Keep the note under 600 characters.");
-const id = z.string().trim().min(1).max(100);
+  .check(
+    z.trim(),
+    z.minLength(10, "Write the note in a sentence (at least 10 characters)."),
+    z.maxLength(600, "Keep the note under 600 characters."),
+  );
+const id = z.string().check(z.trim(), z.minLength(1), z.maxLength(100));
 /** undefined: take it from the case; null: any */
-const family = z.enum(SOLVENT_FAMILIES, { message: "Pick a solvent family." }).nullable().optional();
-const band = z.enum(PH_BANDS, { message: "Pick a pH band." }).nullable().optional();
-const cause = z.enum(CAUSE_CODES, { message: "Pick a cause from the catalogue." }).nullable().optional();
+const family = z.optional(z.nullable(z.enum(SOLVENT_FAMILIES, { message: "Pick a solvent family." })));
+const band = z.optional(z.nullable(z.enum(PH_BANDS, { message: "Pick a pH band." })));
+const cause = z.optional(z.nullable(z.enum(CAUSE_CODES, { message: "Pick a cause from the catalogue." })));
 
 export const adviceCreateBody = z.object({
   /** the verified case the fix comes from */
   caseId: id,
   /** the attempt to promote; by default the case's verified working fix */
-  attemptId: id.optional(),
+  attemptId: z.optional(id),
   text: noteText,
   solventFamily: family,
   phBand: band,
   causeCode: cause,
   /** other cases that back the note */
-  alsoCaseIds: z.array(id).max(50).default([]),
+  alsoCaseIds: z._default(z.array(id).check(z.maxLength(50)), []),
 });
 export type AdviceCreateBody = z.input<typeof adviceCreateBody>;
 
 export const advicePatchBody = z
   .object({
-    text: noteText.optional(),
+    text: z.optional(noteText),
     solventFamily: family,
     phBand: band,
     causeCode: cause,
-    sourceCaseIds: z.array(id).min(1, "A note cites at least one case.").max(50).optional(),
+    sourceCaseIds: z.optional(z.array(id).check(z.minLength(1, "A note cites at least one case."), z.maxLength(50))),
     /** true retires the note (give a reason); false brings it back */
-    retired: z.boolean().optional(),
-    reason: z.string().trim().min(3, "Say why (at least 3 characters).").max(500).optional(),
+    retired: z.optional(z.boolean()),
+    reason: z.optional(z.string().check(z.trim(), z.minLength(3, "Say why (at least 3 characters)."), z.maxLength(500))),
   })
-  .refine((p) => Object.keys(p).some((k) => k !== "reason"), { message: "Change at least one field.", path: ["body"] })
-  .refine((p) => p.retired !== true || p.reason !== undefined, { message: "Say why the note is retired.", path: ["reason"] });
+  .check(
+    z.refine((p) => Object.keys(p).some((k) => k !== "reason"), { message: "Change at least one field.", path: ["body"] }),
+    z.refine((p) => p.retired !== true || p.reason !== undefined, { message: "Say why the note is retired.", path: ["reason"] }),
+  );
 export type AdvicePatchBody = z.input<typeof advicePatchBody>;
 
 export const adviceListQuery = z.object({
-  includeRetired: z
-    .enum(["true", "false"])
-    .transform((v) => v === "true")
-    .default(false),
-  remedy: z.string().trim().max(60).optional(),
+  includeRetired: z._default(
+    z.pipe(
+      z.enum(["true", "false"]),
+      z.transform((v) => v === "true"),
+    ),
+    false,
+  ),
+  remedy: z.optional(z.string().check(z.trim(), z.maxLength(60))),
 });
 
 export interface AdviceSource {

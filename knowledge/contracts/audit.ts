@@ -1,28 +1,30 @@
-import { z } from "zod";
+import * as z from "./zod";
 
 /*
  * The audit log's request and response shapes, shared by the server route and the desk screen.
  */
 
+const filterText = (max: number) => z.optional(z.string().check(z.trim(), z.minLength(1), z.maxLength(max)));
+
 export const auditListQuery = z.object({
   /** entity type, e.g. "case" or "reference-override" */
-  entity: z.string().trim().min(1).max(60).optional(),
-  entityId: z.string().trim().min(1).max(100).optional(),
+  entity: filterText(60),
+  entityId: filterText(100),
   /** user id of whoever acted */
-  actor: z.string().trim().min(1).max(100).optional(),
-  action: z.string().trim().min(1).max(60).optional(),
-  from: z.coerce.date({ message: "Give the start as a date, e.g. 2025-03-01." }).optional(),
-  to: z.coerce.date({ message: "Give the end as a date, e.g. 2025-03-31." }).optional(),
-  sort: z.enum(["newest", "oldest"]).default("newest"),
-  limit: z.coerce.number().int().min(1).max(500).default(100),
-  offset: z.coerce.number().int().min(0).max(1_000_000).default(0),
+  actor: filterText(100),
+  action: filterText(60),
+  from: z.optional(z.coerce.date({ message: "Give the start as a date, e.g. 2025-03-01." })),
+  to: z.optional(z.coerce.date({ message: "Give the end as a date, e.g. 2025-03-31." })),
+  sort: z._default(z.enum(["newest", "oldest"]), "newest"),
+  limit: z._default(z.coerce.number().check(z.int(), z.minimum(1), z.maximum(500)), 100),
+  offset: z._default(z.coerce.number().check(z.int(), z.minimum(0), z.maximum(1_000_000)), 0),
 });
 export type AuditListQuery = z.infer<typeof auditListQuery>;
 
 /** Which side of an entry to bring back: `before` undoes the change, `after` re-applies it. */
 export const auditRestoreBody = z.object({
-  version: z.enum(["before", "after"]).default("before"),
-  reason: z.string().trim().max(500).optional(),
+  version: z._default(z.enum(["before", "after"]), "before"),
+  reason: z.optional(z.string().check(z.trim(), z.maxLength(500))),
 });
 export type AuditRestoreBody = z.infer<typeof auditRestoreBody>;
 

@@ -1,4 +1,4 @@
-import { z } from "zod";
+import * as z from "./zod";
 import { ATTEMPT_OUTCOMES, CASE_STATUSES, PH_BANDS } from "./cases";
 
 /*
@@ -14,37 +14,37 @@ export const BACKUP_VERSION = 1;
 export const BACKUP_MEDIA_TYPE = "application/vnd.phasewise.backup+json";
 export const BACKUP_MAX_BYTES = 200 * 1024 * 1024;
 
-const when = z.string().datetime({ offset: true });
-const whenOrNull = when.nullable();
-const id = z.string().min(1).max(200);
-const idOrNull = id.nullable();
-const textOrNull = z.string().max(100_000).nullable();
+const when = z.iso.datetime({ offset: true });
+const whenOrNull = z.nullable(when);
+const id = z.string().check(z.minLength(1), z.maxLength(200));
+const idOrNull = z.nullable(id);
+const textOrNull = z.nullable(z.string().check(z.maxLength(100_000)));
 const json = z.unknown();
 
-export const backupPerson = z.object({ id, email: z.string().email().max(320), name: z.string().max(200) });
-export const backupMember = z.object({ userId: id, role: z.string().max(40) });
+export const backupPerson = z.object({ id, email: z.email().check(z.maxLength(320)), name: z.string().check(z.maxLength(200)) });
+export const backupMember = z.object({ userId: id, role: z.string().check(z.maxLength(40)) });
 
 export const backupCase = z.object({
   id,
   authorId: id,
-  title: z.string().min(1).max(500),
-  system: z.object({ organic: z.array(z.record(z.string(), json)).min(1), aqueous: z.record(z.string(), json), temperatureC: z.number() }).passthrough(),
+  title: z.string().check(z.minLength(1), z.maxLength(500)),
+  system: z.looseObject({ organic: z.array(z.record(z.string(), json)).check(z.minLength(1)), aqueous: z.record(z.string(), json), temperatureC: z.number() }),
   solventKeys: z.array(z.string()),
   aqueousKey: textOrNull,
   solventFamily: textOrNull,
-  phBand: z.enum(PH_BANDS).nullable(),
+  phBand: z.nullable(z.enum(PH_BANDS)),
   tags: z.array(z.string()),
   causes: z.array(z.string()),
   components: z.array(z.record(z.string(), json)),
-  predicted: z.record(z.string(), json).nullable(),
-  observedBottom: z.enum(["organic", "aqueous"]).nullable(),
+  predicted: z.nullable(z.record(z.string(), json)),
+  observedBottom: z.nullable(z.enum(["organic", "aqueous"])),
   seen: z.record(z.string(), json),
   emulsionKind: textOrNull,
-  notes: z.string().max(100_000),
+  notes: z.string().check(z.maxLength(100_000)),
   status: z.enum(CASE_STATUSES),
   finalOutcome: textOrNull,
-  recovery: z.record(z.string(), json).nullable(),
-  searchText: z.string().max(1_000_000),
+  recovery: z.nullable(z.record(z.string(), json)),
+  searchText: z.string().check(z.maxLength(1_000_000)),
   occurredAt: when,
   createdAt: when,
   updatedAt: when,
@@ -62,11 +62,11 @@ export const backupCase = z.object({
 export const backupAttempt = z.object({
   id,
   caseId: id,
-  position: z.number().int().min(1),
+  position: z.number().check(z.int(), z.minimum(1)),
   remedyId: textOrNull,
   description: textOrNull,
   amount: textOrNull,
-  minutes: z.number().nullable(),
+  minutes: z.nullable(z.number()),
   outcome: z.enum(ATTEMPT_OUTCOMES),
   note: textOrNull,
   authorId: id,
@@ -77,13 +77,13 @@ export const backupAttempt = z.object({
 export const backupPhoto = z.object({
   id,
   caseId: id,
-  storageKey: z.string().max(300),
-  thumbnailKey: z.string().max(300),
-  mimeType: z.string().max(100),
-  sizeBytes: z.number().int().min(0),
-  width: z.number().int().min(0),
-  height: z.number().int().min(0),
-  thumbnailSizeBytes: z.number().int().min(0),
+  storageKey: z.string().check(z.maxLength(300)),
+  thumbnailKey: z.string().check(z.maxLength(300)),
+  mimeType: z.string().check(z.maxLength(100)),
+  sizeBytes: z.number().check(z.int(), z.minimum(0)),
+  width: z.number().check(z.int(), z.minimum(0)),
+  height: z.number().check(z.int(), z.minimum(0)),
+  thumbnailSizeBytes: z.number().check(z.int(), z.minimum(0)),
   uploadedBy: id,
   createdAt: when,
 });
@@ -95,7 +95,7 @@ export const backupRequest = z.object({
   caseId: id,
   askedBy: id,
   askedOf: id,
-  text: z.string().min(1).max(10_000),
+  text: z.string().check(z.minLength(1), z.maxLength(10_000)),
   status: z.enum(["open", "answered"]),
   reply: textOrNull,
   answeredAt: whenOrNull,
@@ -107,7 +107,7 @@ export const backupMerge = z.object({
   id,
   keptId: id,
   mergedId: id,
-  movedAttempts: z.array(z.object({ id, position: z.number().int() })),
+  movedAttempts: z.array(z.object({ id, position: z.number().check(z.int()) })),
   movedPhotoIds: z.array(id),
   addedFollowerIds: z.array(id),
   mergedBy: id,
@@ -118,16 +118,16 @@ export const backupMerge = z.object({
 
 export const backupAdvice = z.object({
   id,
-  remedyId: z.string().min(1).max(100),
+  remedyId: z.string().check(z.minLength(1), z.maxLength(100)),
   solventFamily: textOrNull,
-  phBand: z.enum(PH_BANDS).nullable(),
+  phBand: z.nullable(z.enum(PH_BANDS)),
   causeCode: textOrNull,
-  text: z.string().min(1).max(10_000),
+  text: z.string().check(z.minLength(1), z.maxLength(10_000)),
   sourceCaseIds: z.array(id),
   createdBy: id,
   createdAt: when,
   updatedAt: when,
-  version: z.number().int().min(1),
+  version: z.number().check(z.int(), z.minimum(1)),
   retiredAt: whenOrNull,
   retiredBy: idOrNull,
   retiredReason: textOrNull,
@@ -136,11 +136,11 @@ export const backupAdvice = z.object({
 export const backupOverride = z.object({
   id,
   kind: z.enum(["solvent-value", "aqueous-point", "solvent-new"]),
-  subject: z.string().min(1).max(500),
-  targetKey: z.string().min(1).max(200),
+  subject: z.string().check(z.minLength(1), z.maxLength(500)),
+  targetKey: z.string().check(z.minLength(1), z.maxLength(200)),
   payload: z.record(z.string(), json),
-  source: z.string().min(1).max(2000),
-  reason: z.string().min(1).max(2000),
+  source: z.string().check(z.minLength(1), z.maxLength(2000)),
+  reason: z.string().check(z.minLength(1), z.maxLength(2000)),
   createdBy: idOrNull,
   createdAt: when,
   retiredAt: whenOrNull,
@@ -151,9 +151,9 @@ export const backupOverride = z.object({
 export const backupAudit = z.object({
   id,
   actorId: idOrNull,
-  action: z.string().min(1).max(100),
-  entityType: z.string().min(1).max(100),
-  entityId: z.string().min(1).max(500),
+  action: z.string().check(z.minLength(1), z.maxLength(100)),
+  entityType: z.string().check(z.minLength(1), z.maxLength(100)),
+  entityId: z.string().check(z.minLength(1), z.maxLength(500)),
   before: json,
   after: json,
   reason: textOrNull,
@@ -169,7 +169,7 @@ export const backupDocument = z.object({
   format: z.literal(BACKUP_FORMAT, { message: "This is not a Phasewise group backup." }),
   version: z.literal(BACKUP_VERSION, { message: `Only backups of version ${BACKUP_VERSION} can be read.` }),
   exportedAt: when,
-  group: z.object({ id, name: z.string().max(200), slug: z.string().max(200).nullable() }),
+  group: z.object({ id, name: z.string().check(z.maxLength(200)), slug: z.nullable(z.string().check(z.maxLength(200))) }),
   people: z.array(backupPerson),
   members: z.array(backupMember),
   cases: z.array(backupCase),

@@ -1,8 +1,8 @@
-import { z } from "zod";
+import * as z from "./zod";
 
 /*
  * The case log's request and response shapes, shared by the server routes and the client
- * screens. Pure zod and TypeScript: no I/O. Field names here are the API; change them only
+ * screens. Pure zod/mini and TypeScript: no I/O. Field names here are the API; change them only
  * additively.
  */
 
@@ -68,84 +68,90 @@ export const SLUG_MAX = 60;
 
 // ── building blocks ──────────────────────────────────────────────────────────
 
-const text = (max: number, message?: string) => z.string().trim().max(max, message ?? `Keep it under ${max} characters.`);
+const text = (max: number, message?: string) => z.string().check(z.trim(), z.maxLength(max, message ?? `Keep it under ${max} characters.`));
 const optionalText = (max: number) =>
-  text(max)
-    .optional()
-    .transform((v) => (v === "" ? undefined : v));
+  z.pipe(
+    z.optional(text(max)),
+    z.transform((v) => (v === "" ? undefined : v)),
+  );
 const slug = z
   .string()
-  .trim()
-  .toLowerCase()
-  .min(1, "Pick one.")
-  .max(SLUG_MAX, `At most ${SLUG_MAX} characters.`)
-  .regex(/^[a-z0-9][a-z0-9-]*$/, "Use lower-case letters, digits and hyphens.");
-const positiveMl = z.number({ message: "Give the volume in mL." }).positive("The volume must be more than 0 mL.").max(1_000_000);
+  .check(
+    z.trim(),
+    z.toLowerCase(),
+    z.minLength(1, "Pick one."),
+    z.maxLength(SLUG_MAX, `At most ${SLUG_MAX} characters.`),
+    z.regex(/^[a-z0-9][a-z0-9-]*$/, "Use lower-case letters, digits and hyphens."),
+  );
+const positiveMl = z.number({ message: "Give the volume in mL." }).check(z.positive("The volume must be more than 0 mL."), z.maximum(1_000_000));
 
 export const concentrationSchema = z.union([
   z.literal("saturated"),
   z.object({
-    value: z.number().min(0, "The concentration cannot be negative."),
+    value: z.number().check(z.minimum(0, "The concentration cannot be negative.")),
     unit: z.enum(["mol/L", "%w/w", "g/L"], { message: 'The unit must be "mol/L", "%w/w" or "g/L".' }),
   }),
 ]);
 
 export const organicPartSchema = z.object({
   /** as the chemist typed it; any synonym ("DCM") — the server resolves it */
-  solvent: text(80).min(1, "Name the solvent."),
+  solvent: text(80).check(z.minLength(1, "Name the solvent.")),
   volumeMl: positiveMl,
 });
 
 export const aqueousPartSchema = z.object({
   /** as typed: "water", "brine", "NaHCO3", "Rochelle salt"… */
-  solute: text(80).min(1, "Name the aqueous phase."),
-  concentration: concentrationSchema.optional(),
+  solute: text(80).check(z.minLength(1, "Name the aqueous phase.")),
+  concentration: z.optional(concentrationSchema),
   volumeMl: positiveMl,
   /** measured pH, when known */
-  ph: z.number().min(-2, "pH below −2 is not plausible.").max(16, "pH above 16 is not plausible.").optional(),
+  ph: z.optional(z.number().check(z.minimum(-2, "pH below −2 is not plausible."), z.maximum(16, "pH above 16 is not plausible."))),
 });
 
 export const scaleSchema = z.object({
-  productG: z.number().positive().max(100_000).optional(),
-  mmol: z.number().positive().max(1_000_000).optional(),
-  funnelMl: z.number().positive().max(100_000).optional(),
+  productG: z.optional(z.number().check(z.positive(), z.maximum(100_000))),
+  mmol: z.optional(z.number().check(z.positive(), z.maximum(1_000_000))),
+  funnelMl: z.optional(z.number().check(z.positive(), z.maximum(100_000))),
 });
 
 export const caseSystemSchema = z.object({
-  organic: z.array(organicPartSchema).min(1, "Give at least one organic solvent.").max(6, "At most 6 organic solvents."),
+  organic: z.array(organicPartSchema).check(z.minLength(1, "Give at least one organic solvent."), z.maxLength(6, "At most 6 organic solvents.")),
   aqueous: aqueousPartSchema,
-  temperatureC: z.number().min(-20, "Below −20 °C is outside a funnel work-up.").max(100, "Above 100 °C is outside a funnel work-up.").default(20),
-  scale: scaleSchema.optional(),
+  temperatureC: z._default(
+    z.number().check(z.minimum(-20, "Below −20 °C is outside a funnel work-up."), z.maximum(100, "Above 100 °C is outside a funnel work-up.")),
+    20,
+  ),
+  scale: z.optional(scaleSchema),
 });
 export type CaseSystemInput = z.input<typeof caseSystemSchema>;
 
 const seenFields = {
-  kind: z.enum(EMULSION_KINDS).nullable(),
+  kind: z.nullable(z.enum(EMULSION_KINDS)),
   /** share of the total liquid volume that is emulsified, % */
-  emulsionFractionPct: z.number().min(0).max(100).nullable(),
-  solids: z.boolean().nullable(),
-  colour: text(60).nullable(),
-  thirdLayer: z.boolean().nullable(),
-  cloudyOrganic: z.boolean().nullable(),
-  foamOrBubbles: z.boolean().nullable(),
-  shaking: z.enum(SHAKING_LEVELS).nullable(),
+  emulsionFractionPct: z.nullable(z.number().check(z.minimum(0), z.maximum(100))),
+  solids: z.nullable(z.boolean()),
+  colour: z.nullable(text(60)),
+  thirdLayer: z.nullable(z.boolean()),
+  cloudyOrganic: z.nullable(z.boolean()),
+  foamOrBubbles: z.nullable(z.boolean()),
+  shaking: z.nullable(z.enum(SHAKING_LEVELS)),
   /** minutes already waited before the first attempt */
-  minutesWaited: z.number().min(0).max(100_000).nullable(),
+  minutesWaited: z.nullable(z.number().check(z.minimum(0), z.maximum(100_000))),
 };
 /** What was seen; every field may be null (not noted). */
 export const seenSchema = z.object({
-  kind: seenFields.kind.default(null),
-  emulsionFractionPct: seenFields.emulsionFractionPct.default(null),
-  solids: seenFields.solids.default(null),
-  colour: seenFields.colour.default(null),
-  thirdLayer: seenFields.thirdLayer.default(null),
-  cloudyOrganic: seenFields.cloudyOrganic.default(null),
-  foamOrBubbles: seenFields.foamOrBubbles.default(null),
-  shaking: seenFields.shaking.default(null),
-  minutesWaited: seenFields.minutesWaited.default(null),
+  kind: z._default(seenFields.kind, null),
+  emulsionFractionPct: z._default(seenFields.emulsionFractionPct, null),
+  solids: z._default(seenFields.solids, null),
+  colour: z._default(seenFields.colour, null),
+  thirdLayer: z._default(seenFields.thirdLayer, null),
+  cloudyOrganic: z._default(seenFields.cloudyOrganic, null),
+  foamOrBubbles: z._default(seenFields.foamOrBubbles, null),
+  shaking: z._default(seenFields.shaking, null),
+  minutesWaited: z._default(seenFields.minutesWaited, null),
 });
 /** A patch of what was seen: only the fields sent change. */
-export const seenPatchSchema = z.object(seenFields).partial();
+export const seenPatchSchema = z.partial(z.object(seenFields));
 export const EMPTY_SEEN: z.output<typeof seenSchema> = {
   kind: null,
   emulsionFractionPct: null,
@@ -160,143 +166,146 @@ export const EMPTY_SEEN: z.output<typeof seenSchema> = {
 export type CaseSeen = z.output<typeof seenSchema>;
 
 export const componentSchema = z.object({
-  name: text(120).min(1, "Name the component."),
-  role: z.enum(COMPONENT_ROLES).optional(),
-  kind: z.enum(["acid", "base", "neutral"]).optional(),
+  name: text(120).check(z.minLength(1, "Name the component.")),
+  role: z.optional(z.enum(COMPONENT_ROLES)),
+  kind: z.optional(z.enum(["acid", "base", "neutral"])),
   /** for a base, the pKa of its conjugate acid */
-  pKa: z.number().min(-15).max(60).optional(),
+  pKa: z.optional(z.number().check(z.minimum(-15), z.maximum(60))),
 });
 export type CaseComponent = z.output<typeof componentSchema>;
 
-const tagSchema = z
-  .string()
-  .trim()
-  .toLowerCase()
-  .min(1)
-  .max(40, "Keep each tag under 40 characters.")
-  .transform((t) => t.replace(/\s+/g, "-"));
+const tagSchema = z.pipe(
+  z.string().check(z.trim(), z.toLowerCase(), z.minLength(1), z.maxLength(40, "Keep each tag under 40 characters.")),
+  z.transform((t) => t.replace(/\s+/g, "-")),
+);
 
 export const recoverySchema = z.object({
-  massG: z.number().min(0).max(100_000).optional(),
-  percent: z.number().min(0).max(110, "Recovery above 110 % needs a second look.").optional(),
+  massG: z.optional(z.number().check(z.minimum(0), z.maximum(100_000))),
+  percent: z.optional(z.number().check(z.minimum(0), z.maximum(110, "Recovery above 110 % needs a second look."))),
 });
 
 // ── attempts ─────────────────────────────────────────────────────────────────
 
 const attemptFields = {
   /** a remedy id from the emulsion catalogue ("saturated-brine"); null for a free description */
-  remedyId: slug.nullable().default(null),
+  remedyId: z._default(z.nullable(slug), null),
   description: optionalText(500),
   /** "20 mL saturated brine", "3 g NaCl" */
   amount: optionalText(120),
-  minutes: z.number().min(0).max(10_000).optional(),
+  minutes: z.optional(z.number().check(z.minimum(0), z.maximum(10_000))),
   outcome: z.enum(ATTEMPT_OUTCOMES, { message: "Outcome must be cleared, partly, no-change or worse." }),
   note: optionalText(2000),
 };
 
-export const attemptBody = z
-  .object(attemptFields)
-  .refine((a) => a.remedyId !== null || (a.description ?? "") !== "", {
+export const attemptBody = z.object(attemptFields).check(
+  z.refine((a) => a.remedyId !== null || (a.description ?? "") !== "", {
     message: "Pick a remedy or describe what you tried.",
     path: ["remedyId"],
-  });
+  }),
+);
 export type AttemptBody = z.input<typeof attemptBody>;
 
 export const attemptPatchBody = z
   .object({
-    remedyId: slug.nullable().optional(),
-    description: text(500).nullable().optional(),
-    amount: text(120).nullable().optional(),
-    minutes: z.number().min(0).max(10_000).nullable().optional(),
-    outcome: z.enum(ATTEMPT_OUTCOMES).optional(),
-    note: text(2000).nullable().optional(),
+    remedyId: z.optional(z.nullable(slug)),
+    description: z.optional(z.nullable(text(500))),
+    amount: z.optional(z.nullable(text(120))),
+    minutes: z.optional(z.nullable(z.number().check(z.minimum(0), z.maximum(10_000)))),
+    outcome: z.optional(z.enum(ATTEMPT_OUTCOMES)),
+    note: z.optional(z.nullable(text(2000))),
   })
-  .refine((p) => Object.keys(p).length > 0, { message: "Change at least one field.", path: ["body"] });
+  .check(z.refine((p) => Object.keys(p).length > 0, { message: "Change at least one field.", path: ["body"] }));
 export type AttemptPatchBody = z.input<typeof attemptPatchBody>;
 
 // ── cases ────────────────────────────────────────────────────────────────────
 
+const caseStatus = z.enum(CASE_STATUSES, { message: "Status must be open, resolved or abandoned." });
+const occurredAt = z.iso.datetime({ offset: true, message: "Give an ISO date-time." });
+
 const caseFields = {
-  title: text(140).min(3, "Give the case a title of at least 3 characters."),
+  title: text(140).check(z.minLength(3, "Give the case a title of at least 3 characters.")),
   system: caseSystemSchema,
-  tags: z.array(tagSchema).max(20, "At most 20 tags.").default([]),
-  components: z.array(componentSchema).max(20, "At most 20 components.").default([]),
+  tags: z._default(z.array(tagSchema).check(z.maxLength(20, "At most 20 tags.")), []),
+  components: z._default(z.array(componentSchema).check(z.maxLength(20, "At most 20 components.")), []),
   /** suspected cause codes from the emulsion catalogue ("fine-solids") */
-  causes: z.array(slug).max(8, "At most 8 causes.").default([]),
+  causes: z._default(z.array(slug).check(z.maxLength(8, "At most 8 causes.")), []),
   /** the phase seen at the bottom; null when not checked */
-  observedBottom: z.enum(PHASES).nullable().default(null),
-  seen: seenSchema.default(EMPTY_SEEN),
-  notes: text(10_000).default(""),
-  status: z.enum(CASE_STATUSES, { message: "Status must be open, resolved or abandoned." }).default("open"),
+  observedBottom: z._default(z.nullable(z.enum(PHASES)), null),
+  seen: z._default(seenSchema, EMPTY_SEEN),
+  notes: z._default(text(10_000), ""),
+  status: z._default(caseStatus, "open"),
   /** "product recovered from both layers after filtration" */
-  finalOutcome: text(1000).nullable().default(null),
-  recovery: recoverySchema.nullable().default(null),
+  finalOutcome: z._default(z.nullable(text(1000)), null),
+  recovery: z._default(z.nullable(recoverySchema), null),
   /** when the work-up happened (ISO 8601); defaults to now */
-  occurredAt: z.iso.datetime({ offset: true, message: "Give an ISO date-time." }).optional(),
+  occurredAt: z.optional(occurredAt),
 };
 
 export const createCaseBody = z.object({
   ...caseFields,
   /** attempts already made, in order; saved in the same transaction as the case */
-  attempts: z.array(attemptBody).max(MAX_ATTEMPTS_PER_CASE).default([]),
+  attempts: z._default(z.array(attemptBody).check(z.maxLength(MAX_ATTEMPTS_PER_CASE)), []),
 });
 export type CreateCaseBody = z.input<typeof createCaseBody>;
 export type CreateCaseParsed = z.output<typeof createCaseBody>;
 
 export const patchCaseBody = z
   .object({
-    title: caseFields.title.optional(),
-    system: caseSystemSchema.optional(),
-    tags: z.array(tagSchema).max(20).optional(),
-    components: z.array(componentSchema).max(20).optional(),
-    causes: z.array(slug).max(8).optional(),
-    observedBottom: z.enum(PHASES).nullable().optional(),
-    seen: seenPatchSchema.optional(),
-    notes: text(10_000).optional(),
-    status: z.enum(CASE_STATUSES, { message: "Status must be open, resolved or abandoned." }).optional(),
-    finalOutcome: text(1000).nullable().optional(),
-    recovery: recoverySchema.nullable().optional(),
-    occurredAt: z.iso.datetime({ offset: true, message: "Give an ISO date-time." }).optional(),
+    title: z.optional(caseFields.title),
+    system: z.optional(caseSystemSchema),
+    tags: z.optional(z.array(tagSchema).check(z.maxLength(20))),
+    components: z.optional(z.array(componentSchema).check(z.maxLength(20))),
+    causes: z.optional(z.array(slug).check(z.maxLength(8))),
+    observedBottom: z.optional(z.nullable(z.enum(PHASES))),
+    seen: z.optional(seenPatchSchema),
+    notes: z.optional(text(10_000)),
+    status: z.optional(caseStatus),
+    finalOutcome: z.optional(z.nullable(text(1000))),
+    recovery: z.optional(z.nullable(recoverySchema)),
+    occurredAt: z.optional(occurredAt),
   })
-  .refine((p) => Object.keys(p).length > 0, { message: "Change at least one field.", path: ["body"] });
+  .check(z.refine((p) => Object.keys(p).length > 0, { message: "Change at least one field.", path: ["body"] }));
 export type PatchCaseBody = z.input<typeof patchCaseBody>;
 
 // ── list query ───────────────────────────────────────────────────────────────
 
-const boolFlag = z
-  .enum(["true", "false", "1", "0"], { message: "Use true or false." })
-  .transform((v) => v === "true" || v === "1");
+const boolFlag = z.pipe(
+  z.enum(["true", "false", "1", "0"], { message: "Use true or false." }),
+  z.transform((v) => v === "true" || v === "1"),
+);
 const dateParam = z
   .string()
-  .regex(/^\d{4}-\d{2}-\d{2}(T.*)?$/, "Use a date like 2025-03-14.")
-  .refine((v) => !Number.isNaN(Date.parse(v)), "That is not a date.");
+  .check(
+    z.regex(/^\d{4}-\d{2}-\d{2}(T.*)?$/, "Use a date like 2025-03-14."),
+    z.refine((v) => !Number.isNaN(Date.parse(v)), "That is not a date."),
+  );
 
 /** GET /api/cases and /api/cases/export.csv query string. All filters combine (AND). */
 export const caseListQuery = z.object({
   /** one search box: titles, notes, solvents by any synonym, remedies, tags */
-  q: text(200).optional(),
+  q: z.optional(text(200)),
   /** solvent by any synonym ("DCM") */
-  solvent: text(80).optional(),
+  solvent: z.optional(text(80)),
   /** aqueous solute by any synonym ("bicarb") */
-  aqueous: text(80).optional(),
-  cause: slug.optional(),
+  aqueous: z.optional(text(80)),
+  cause: z.optional(slug),
   /** a remedy that was tried; with `outcome`, the same attempt must have that outcome */
-  remedy: slug.optional(),
-  outcome: z.enum(ATTEMPT_OUTCOMES).optional(),
-  status: z.enum(CASE_STATUSES).optional(),
+  remedy: z.optional(slug),
+  outcome: z.optional(z.enum(ATTEMPT_OUTCOMES)),
+  status: z.optional(z.enum(CASE_STATUSES)),
   /** a user id, or "me" */
-  author: text(100).optional(),
+  author: z.optional(text(100)),
   /** occurredAt on or after this date (inclusive) */
-  from: dateParam.optional(),
+  from: z.optional(dateParam),
   /** occurredAt on or before this date (a bare date includes the whole day) */
-  to: dateParam.optional(),
-  verified: boolFlag.optional(),
+  to: z.optional(dateParam),
+  verified: z.optional(boolFlag),
   /** retired and merged cases are hidden unless asked for */
-  includeRetired: boolFlag.optional(),
-  sort: z.enum(SORT_KEYS).optional(),
-  order: z.enum(["asc", "desc"]).optional(),
-  limit: z.coerce.number().int().min(1).max(200).default(50),
-  offset: z.coerce.number().int().min(0).default(0),
+  includeRetired: z.optional(boolFlag),
+  sort: z.optional(z.enum(SORT_KEYS)),
+  order: z.optional(z.enum(["asc", "desc"])),
+  limit: z._default(z.coerce.number().check(z.int(), z.minimum(1), z.maximum(200)), 50),
+  offset: z._default(z.coerce.number().check(z.int(), z.minimum(0)), 0),
 });
 export type CaseListQuery = z.input<typeof caseListQuery>;
 export type CaseListFilters = z.output<typeof caseListQuery>;

@@ -1,4 +1,4 @@
-import { z } from "zod";
+import * as z from "./zod";
 import type { AttemptOutcome, CasePhBand, CaseStatus, EmulsionKind } from "./cases";
 
 /*
@@ -35,11 +35,10 @@ export const RETIRE_LABELS: Record<RetireCode, string> = {
 const text = (min: number, max: number, what: string) =>
   z
     .string({ message: `Write ${what}.` })
-    .trim()
-    .min(min, `Write ${what} (at least ${min} characters).`)
-    .max(max, `Keep ${what} under ${max} characters.`);
+    .check(z.trim(), z.minLength(min, `Write ${what} (at least ${min} characters).`), z.maxLength(max, `Keep ${what} under ${max} characters.`));
 
-const caseId = z.string().trim().min(1, "Name the case.").max(100);
+const caseId = z.string().check(z.trim(), z.minLength(1, "Name the case."), z.maxLength(100));
+const optionalNote = z.optional(z.string().check(z.trim(), z.maxLength(500)));
 
 export const retireBody = z.object({
   code: z.enum(RETIRE_CODES, { message: "Pick why the case is retired." }),
@@ -47,25 +46,28 @@ export const retireBody = z.object({
 });
 export type RetireBody = z.input<typeof retireBody>;
 
-export const restoreBody = z.object({ reason: z.string().trim().max(500).optional() }).default({});
+export const restoreBody = z._default(z.object({ reason: optionalNote }), {});
 
 // ── verify ───────────────────────────────────────────────────────────────────
 
-export const verifyBody = z
-  .object({
+export const verifyBody = z._default(
+  z.object({
     /** the attempt that worked; by default the last attempt that cleared */
-    attemptId: z.string().trim().min(1).max(100).optional(),
-    note: z.string().trim().max(500).optional(),
-  })
-  .default({});
+    attemptId: z.optional(z.string().check(z.trim(), z.minLength(1), z.maxLength(100))),
+    note: optionalNote,
+  }),
+  {},
+);
 export type VerifyBody = z.input<typeof verifyBody>;
 
 export const bulkVerifyBody = z.object({
   ids: z
     .array(caseId)
-    .min(1, "Select at least one case.")
-    .max(100, "Verify at most 100 cases at once.")
-    .refine((ids) => new Set(ids).size === ids.length, "A case is selected twice."),
+    .check(
+      z.minLength(1, "Select at least one case."),
+      z.maxLength(100, "Verify at most 100 cases at once."),
+      z.refine((ids) => new Set(ids).size === ids.length, "A case is selected twice."),
+    ),
 });
 export type BulkVerifyBody = z.input<typeof bulkVerifyBody>;
 
@@ -74,7 +76,7 @@ export type BulkVerifyBody = z.input<typeof bulkVerifyBody>;
 export const mergeBody = z.object({
   /** the case that remains */
   into: caseId,
-  reason: z.string().trim().max(500).optional(),
+  reason: optionalNote,
 });
 export type MergeBody = z.input<typeof mergeBody>;
 
@@ -88,14 +90,14 @@ export type RequestBody = z.input<typeof requestBody>;
 
 export const requestPatchBody = z
   .object({
-    status: z.enum(REQUEST_STATUSES, { message: "Status is open or answered." }).optional(),
-    reply: z.string().trim().max(2000, "Keep the reply under 2000 characters.").optional(),
+    status: z.optional(z.enum(REQUEST_STATUSES, { message: "Status is open or answered." })),
+    reply: z.optional(z.string().check(z.trim(), z.maxLength(2000, "Keep the reply under 2000 characters."))),
   })
-  .refine((p) => p.status !== undefined || p.reply !== undefined, { message: "Change the status or write a reply.", path: ["body"] });
+  .check(z.refine((p) => p.status !== undefined || p.reply !== undefined, { message: "Change the status or write a reply.", path: ["body"] }));
 export type RequestPatchBody = z.input<typeof requestPatchBody>;
 
 export const myRequestsQuery = z.object({
-  status: z.enum([...REQUEST_STATUSES, "all"]).default("open"),
+  status: z._default(z.enum([...REQUEST_STATUSES, "all"]), "open"),
 });
 
 export interface PersonRef {
@@ -159,9 +161,9 @@ export type ReviewKind = (typeof REVIEW_KINDS)[number];
 
 export const reviewQuery = z.object({
   /** new = still open; resolved = resolved or abandoned, not yet verified; asked = has an open request */
-  kind: z.enum(REVIEW_KINDS).default("all"),
-  limit: z.coerce.number().int().min(1).max(200).default(100),
-  offset: z.coerce.number().int().min(0).default(0),
+  kind: z._default(z.enum(REVIEW_KINDS), "all"),
+  limit: z._default(z.coerce.number().check(z.int(), z.minimum(1), z.maximum(200)), 100),
+  offset: z._default(z.coerce.number().check(z.int(), z.minimum(0)), 0),
 });
 export type ReviewQuery = z.input<typeof reviewQuery>;
 

@@ -1,4 +1,4 @@
-import { z } from "zod";
+import * as z from "./zod";
 
 /*
  * The group's insight: how remedies do by system family, how long clearing takes, which cases
@@ -8,13 +8,15 @@ import { z } from "zod";
 
 const day = z
   .string()
-  .regex(/^\d{4}-\d{2}-\d{2}$/, "Use a date like 2025-03-14.")
-  .refine((v) => !Number.isNaN(Date.parse(`${v}T00:00:00Z`)), "That is not a date.");
+  .check(
+    z.regex(/^\d{4}-\d{2}-\d{2}$/, "Use a date like 2025-03-14."),
+    z.refine((v) => !Number.isNaN(Date.parse(`${v}T00:00:00Z`)), "That is not a date."),
+  );
 
 /** Both ends inclusive, whole days in UTC; by default the last 12 calendar months up to today. */
 export const insightQuery = z
-  .object({ from: day.optional(), to: day.optional() })
-  .refine((q) => !q.from || !q.to || q.from <= q.to, { message: "The start date is after the end date.", path: ["from"] });
+  .object({ from: z.optional(day), to: z.optional(day) })
+  .check(z.refine((q) => !q.from || !q.to || q.from <= q.to, { message: "The start date is after the end date.", path: ["from"] }));
 export type InsightQuery = z.input<typeof insightQuery>;
 
 /** A case is stubborn when it is still open after this many attempts, none of which cleared it. */

@@ -1,4 +1,4 @@
-import { z } from "zod";
+import * as z from "./zod";
 
 /* Invitations to a lab group: request and response shapes shared by the server and the desk. */
 
@@ -8,10 +8,7 @@ export type InvitableRole = (typeof INVITABLE_ROLES)[number];
 export const createInvitationBody = z.object({
   email: z
     .string({ message: "Enter the e-mail address to invite." })
-    .trim()
-    .toLowerCase()
-    .max(254, "That address is too long.")
-    .email("Enter an e-mail address, e.g. name@example.org."),
+    .check(z.trim(), z.toLowerCase(), z.maxLength(254, "That address is too long."), z.email("Enter an e-mail address, e.g. name@example.org.")),
   role: z.enum(INVITABLE_ROLES, { message: "Pick a role: lead or chemist (an owner may also invite an owner)." }),
 });
 export type CreateInvitationBody = z.infer<typeof createInvitationBody>;

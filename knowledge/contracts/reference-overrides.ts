@@ -1,4 +1,4 @@
-import { z } from "zod";
+import * as z from "./zod";
 import { applyOverrides, type ReferenceOverride, type SolventValueField } from "../overrides";
 import { KnowledgeInputError, type ReferenceData } from "../types";
 import type { ResolvedValue, SolventDetail } from "./solvents";
@@ -27,46 +27,47 @@ export const AQUEOUS_DENSITY_RANGE = { min: 0.8, max: 2.5 } as const;
 const provenance = {
   source: z
     .string({ message: "Name the source: an SDS, a handbook table, a measurement in the lab." })
-    .trim()
-    .min(3, "Name the source: an SDS, a handbook table, a measurement in the lab.")
-    .max(300, "Keep the source under 300 characters."),
+    .check(
+      z.trim(),
+      z.minLength(3, "Name the source: an SDS, a handbook table, a measurement in the lab."),
+      z.maxLength(300, "Keep the source under 300 characters."),
+    ),
   reason: z
     .string({ message: "Say why the group needs this value." })
-    .trim()
-    .min(3, "Say why the group needs this value.")
-    .max(1000, "Keep the reason under 1000 characters."),
+    .check(z.trim(), z.minLength(3, "Say why the group needs this value."), z.maxLength(1000, "Keep the reason under 1000 characters.")),
 };
 
 const solventValueBody = z
   .object({
     kind: z.literal("solvent-value"),
-    solventKey: z.string().trim().min(1, "Pick a solvent.").max(120),
+    solventKey: z.string().check(z.trim(), z.minLength(1, "Pick a solvent."), z.maxLength(120)),
     field: z.enum(SOLVENT_VALUE_FIELD_KEYS, { message: "Pick which value to correct." }),
-    value: z.number({ message: "Give the value as a number." }).finite(),
+    value: z.number({ message: "Give the value as a number." }),
     ...provenance,
   })
-  .superRefine((b, ctx) => {
-    const f = SOLVENT_VALUE_FIELDS[b.field];
-    if (b.value < f.min || b.value > f.max) {
-      ctx.addIssue({
-        code: "custom",
-        path: ["value"],
-        message: `${f.label} must lie between ${f.min} and ${f.max} ${f.unit}; check the number and its unit.`,
-      });
-    }
-  });
+  .check(
+    z.superRefine((b, ctx) => {
+      const f = SOLVENT_VALUE_FIELDS[b.field];
+      if (b.value < f.min || b.value > f.max) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["value"],
+          message: `${f.label} must lie between ${f.min} and ${f.max} ${f.unit}; check the number and its unit.`,
+        });
+      }
+    }),
+  );
 
+const aqueousDensityMessage = `An aqueous solution's density lies between ${AQUEOUS_DENSITY_RANGE.min} and ${AQUEOUS_DENSITY_RANGE.max} g/mL.`;
 const aqueousPointBody = z.object({
   kind: z.literal("aqueous-point"),
-  soluteKey: z.string().trim().min(1, "Pick a solution.").max(120),
+  soluteKey: z.string().check(z.trim(), z.minLength(1, "Pick a solution."), z.maxLength(120)),
   massFractionPct: z
     .number({ message: "Give the concentration in % w/w." })
-    .gt(0, "The concentration must be above 0 % w/w.")
-    .max(100, "The concentration cannot exceed 100 % w/w."),
+    .check(z.gt(0, "The concentration must be above 0 % w/w."), z.maximum(100, "The concentration cannot exceed 100 % w/w.")),
   densityGPerMl: z
     .number({ message: "Give the density in g/mL." })
-    .min(AQUEOUS_DENSITY_RANGE.min, `An aqueous solution's density lies between ${AQUEOUS_DENSITY_RANGE.min} and ${AQUEOUS_DENSITY_RANGE.max} g/mL.`)
-    .max(AQUEOUS_DENSITY_RANGE.max, `An aqueous solution's density lies between ${AQUEOUS_DENSITY_RANGE.min} and ${AQUEOUS_DENSITY_RANGE.max} g/mL.`),
+    .check(z.minimum(AQUEOUS_DENSITY_RANGE.min, aqueousDensityMessage), z.maximum(AQUEOUS_DENSITY_RANGE.max, aqueousDensityMessage)),
   ...provenance,
 });
 
@@ -76,12 +77,14 @@ export const createOverrideBody = z.discriminatedUnion("kind", [solventValueBody
 export type CreateOverrideBody = z.infer<typeof createOverrideBody>;
 
 export const retireOverrideBody = z.object({
-  reason: z.string({ message: "Say why this correction no longer applies." }).trim().min(3, "Say why this correction no longer applies.").max(1000),
+  reason: z
+    .string({ message: "Say why this correction no longer applies." })
+    .check(z.trim(), z.minLength(3, "Say why this correction no longer applies."), z.maxLength(1000)),
 });
 
 export const overrideListQuery = z.object({
-  status: z.enum(["active", "retired", "all"]).default("active"),
-  target: z.string().trim().min(1).max(120).optional(),
+  status: z._default(z.enum(["active", "retired", "all"]), "active"),
+  target: z.optional(z.string().check(z.trim(), z.minLength(1), z.maxLength(120))),
 });
 
 /** One side of the comparison: a value and where it comes from. */
