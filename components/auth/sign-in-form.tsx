@@ -1,4 +1,5 @@
-import { Link, useRouter } from "expo-router";
+import { Link, useGlobalSearchParams, useRouter } from "expo-router";
+import { safeReturnTo } from "./return-to";
 import { useState } from "react";
 import { StyleSheet, View } from "react-native";
 import { useQueryClient } from "@tanstack/react-query";
@@ -12,6 +13,7 @@ import { Text } from "../ui/text";
 /** E-mail and password sign-in. Keeps what was typed when it fails. */
 export function SignInForm({ onSignedIn }: { onSignedIn?: () => void }) {
   const router = useRouter();
+  const { next } = useGlobalSearchParams<{ next?: string }>();
   const qc = useQueryClient();
   const [email, setEmail] = useState("");
   const [password, setPassword] = useState("");
@@ -33,8 +35,8 @@ export function SignInForm({ onSignedIn }: { onSignedIn?: () => void }) {
     }
     await qc.invalidateQueries();
     if (onSignedIn) onSignedIn();
-    else if (router.canDismiss()) router.dismissTo("/");
-    else router.replace("/");
+    else if (router.canDismiss()) router.dismissTo(safeReturnTo(next) as never);
+    else router.replace(safeReturnTo(next) as never);
   };
 
   return (

@@ -160,3 +160,41 @@ describe("solvent tables", () => {
     }
   });
 });
+
+describe("a shared link opened signed out", () => {
+  it("opens a shared check signed out, asks to sign in, then shows that check", async () => {
+    const b = await openBrowser(PHONE);
+    try {
+      const { page } = b;
+      // Toluene (0.867 g/mL, CRC) over water: the organic layer on top.
+      await page.goto(`${BASE_URL}/layers?o=toluene:30&aq=water&av=30&t=20`);
+      await page.getByTestId("sign-in-email").waitFor();
+      expect(new URL(page.url()).searchParams.get("next")).toBe("/layers?o=toluene:30&aq=water&av=30&t=20");
+      await page.getByTestId("sign-in-email").fill(DEMO.chemist.email);
+      await page.getByTestId("sign-in-password").fill(DEMO.chemist.password);
+      await page.getByTestId("sign-in-submit").click();
+      await page.getByTestId("answer-top").waitFor();
+      expect(await text(page, "answer-top")).toBe("Top layer: organic");
+      expect(new URL(page.url()).pathname).toBe("/layers");
+      expect(new URL(page.url()).searchParams.get("o")).toBe("toluene:30");
+    } finally {
+      await b.close();
+    }
+  });
+
+  it("ignores a sign-in link that would send the chemist to another site", async () => {
+    const b = await openBrowser(PHONE);
+    try {
+      const { page } = b;
+      await page.goto(`${BASE_URL}/sign-in?next=${encodeURIComponent("//elsewhere.example/steal")}`);
+      await page.getByTestId("sign-in-email").fill(DEMO.chemist.email);
+      await page.getByTestId("sign-in-password").fill(DEMO.chemist.password);
+      await page.getByTestId("sign-in-submit").click();
+      await page.getByTestId("tab-bar").waitFor();
+      expect(new URL(page.url()).origin).toBe(new URL(BASE_URL).origin);
+      expect(new URL(page.url()).pathname).toBe("/");
+    } finally {
+      await b.close();
+    }
+  });
+});
