@@ -20,6 +20,11 @@ export interface ComputeApiReport {
   /** mean of the bare route measured before and after the app's routes */
   bare: LoadFigure;
   bareRuns: LoadFigure[];
+  /**
+   * The same route handlers on a bare Express app (bench/servers/compute-server.ts): what the
+   * validation, computation and JSON answer cost on their own, without the rest of the app.
+   */
+  handlersOnly: (LoadFigure & { throughputRatio: number })[];
   /** registered: the route answered the sample body with 200 (status says what it answered) */
   routes: (LoadFigure & { throughputRatio: number; registered: boolean; status: number })[];
 }
@@ -117,6 +122,23 @@ export async function benchComputeApi(opts: { connections: number; durationS: nu
   } finally {
     await child.stop();
   }
+  const handlersOnly: LoadFigure[] = [];
+  {
+    const { child: c, match: m } = await startChild(path.join(ROOT, "bench/servers/compute-server.ts"), { ready });
+    try {
+      for (const [route, body] of [
+        ["/api/layers/predict", LAYER_BODY],
+        ["/api/plans/compute", PLAN_BODY],
+      ] as const) {
+        const url = `http://127.0.0.1:${m[1]}${route}`;
+        if ((await answers(url, body)) !== 200) continue;
+        await load(url, body, connections, Math.min(2, durationS));
+        handlersOnly.push(await load(url, body, connections, durationS));
+      }
+    } finally {
+      await c.stop();
+    }
+  }
   await measureBare();
 
   const mean = (f: (x: LoadFigure) => number) => bareRuns.reduce((a, x) => a + f(x), 0) / bareRuns.length;
@@ -134,6 +156,7 @@ export async function benchComputeApi(opts: { connections: number; durationS: nu
     serviceTime,
     bare,
     bareRuns,
+    handlersOnly: handlersOnly.map((f) => ({ ...f, throughputRatio: f.requestsPerSec / bare.requestsPerSec })),
     routes: measured.map(({ figure, registered, status }) => ({
       ...figure,
       registered,

@@ -95,6 +95,11 @@ async function main() {
         const isLayer = r.route === "/api/layers/predict";
         rows.push({ area: "compute API", figure: `${r.route} p50 / p99`, value: `${ms(r.p50Ms)} / ${ms(r.p99Ms)}`, baseline: `${ms(a.bare.p50Ms)} / ${ms(a.bare.p99Ms)}`, ratio: x(r.p99Ms / Math.max(a.bare.p99Ms, 0.01)), target: isLayer ? `p99 ≤ ${TARGETS.layerP99Ms} ms` : "—", met: isLayer ? met(r.p99Ms <= TARGETS.layerP99Ms) : "—" });
       }
+      for (const h of a.handlersOnly) {
+        const inApp = a.routes.find((r) => r.route === h.route);
+        rows.push({ area: "compute API", figure: `${h.route} handlers alone on bare Express`, value: `${h.requestsPerSec.toFixed(0)} req/s`, baseline: bareRow, ratio: x(h.throughputRatio), target: "—", met: "—" });
+        if (inApp?.registered) rows.push({ area: "compute API", figure: `${h.route} in the app vs handlers alone`, value: `${inApp.requestsPerSec.toFixed(0)} req/s`, baseline: `${h.requestsPerSec.toFixed(0)} req/s`, ratio: x(inApp.requestsPerSec / h.requestsPerSec), target: "—", met: "—" });
+      }
       const bareSvc = a.serviceTime.find((s) => s.route === "/bare");
       for (const s of a.serviceTime.filter((x) => x.route !== "/bare")) {
         rows.push({ area: "compute API", figure: `${s.route} p50 / p99, 1 connection`, value: `${ms(s.p50Ms)} / ${ms(s.p99Ms)}`, baseline: bareSvc ? `${ms(bareSvc.p50Ms)} / ${ms(bareSvc.p99Ms)}` : "—", ratio: bareSvc ? x(s.p99Ms / Math.max(bareSvc.p99Ms, 1)) : "—", target: s.route === "/api/layers/predict" ? `p99 ≤ ${TARGETS.layerP99Ms} ms` : "—", met: s.route === "/api/layers/predict" ? met(s.p99Ms <= TARGETS.layerP99Ms) : "—" });
