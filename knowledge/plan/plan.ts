@@ -315,12 +315,16 @@ export function computePlan(input: PlanInput, ref: ReferenceData = SHIPPED_REFER
     if (chem.carbonate) {
       sources.add("si-2019-gas-constant");
       sources.add("sander-2015-from-memory");
-      const perPass = washCo2Mmol / repeats;
       const carried = previousAcidicWash !== null ? ` Acid wash ${previousAcidicWash + 1} left in the funnel or the organic layer adds more.` : "";
+      // The first pass meets most of the acid, so the largest pass is what the funnel must vent.
+      const amount =
+        repeats === 1
+          ? `about ${volumeText(washCo2Mmol * gasMlPerMmol(T))} of CO2 (${washCo2Mmol.toFixed(1)} mmol at ${T} °C, 1 atm)`
+          : `up to ${volumeText(maxPassCo2Ml)} of CO2 in one pass, most in the first (${washCo2Mmol.toFixed(1)} mmol over ${repeats} passes at ${T} °C, 1 atm)`;
       warn(
         "co2-gas",
         washCo2Mmol > 0.05
-          ? `${label}: about ${volumeText(perPass * gasMlPerMmol(T))} of CO2 per pass (${perPass.toFixed(1)} mmol at ${T} °C, 1 atm) as it neutralises the acids.${carried} Swirl unstoppered first, then vent after every inversion, tip pointed away from people.`
+          ? `${label}: ${amount} as it neutralises the acids.${carried} Swirl unstoppered first, then vent after every inversion, tip pointed away from people.`
           : `${label}: little CO2 expected from the listed components.${carried} Swirl unstoppered first and vent after every inversion.`,
       );
       if (maxPassCo2Ml >= LITRES_OF_GAS_ML) {
