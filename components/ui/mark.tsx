@@ -1,21 +1,21 @@
 import Svg, { Path, Rect, ClipPath, Defs, G } from "react-native-svg";
-import { colors } from "../../hooks/theme";
+import { MARK } from "./mark-shape";
 
-/** Phasewise's mark: a stacked pair of bands inside a rounded drop. */
+/** Phasewise's mark: a stacked pair of bands inside a rounded drop (native; mark.web.tsx for the web). */
 export function Mark({ size = 32 }: { size?: number }) {
   return (
-    <Svg width={size} height={size} viewBox="0 0 32 32" accessibilityLabel="Phasewise">
+    <Svg width={size} height={size} viewBox={MARK.viewBox} accessibilityLabel={MARK.label}>
       <Defs>
         <ClipPath id="drop">
-          <Path d="M16 2 C22 10 27 15 27 21 A11 11 0 0 1 5 21 C5 15 10 10 16 2 Z" />
+          <Path d={MARK.drop} />
         </ClipPath>
       </Defs>
       <G clipPath="url(#drop)">
-        <Rect x="0" y="0" width="32" height="18" fill={colors.organic} />
-        <Rect x="0" y="18" width="32" height="14" fill={colors.aqueous} />
-        <Rect x="0" y="17" width="32" height="2" fill={colors.surface} />
+        {MARK.bands.map((b) => (
+          <Rect key={b.y} x="0" y={String(b.y)} width="32" height={String(b.height)} fill={b.fill} />
+        ))}
       </G>
-      <Path d="M16 2 C22 10 27 15 27 21 A11 11 0 0 1 5 21 C5 15 10 10 16 2 Z" fill="none" stroke={colors.brand} strokeWidth="2" />
+      <Path d={MARK.drop} fill="none" stroke={MARK.outline} strokeWidth="2" />
     </Svg>
   );
 }
