@@ -2,8 +2,11 @@ import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { fireEvent, render, screen, waitFor } from "@testing-library/react-native";
 import { SignInForm } from "../../components/auth/sign-in-form";
 
+const mockReplace = jest.fn();
+let mockParams: Record<string, string> = {};
 jest.mock("expo-router", () => ({
-  useRouter: () => ({ replace: jest.fn(), canDismiss: () => false, dismissTo: jest.fn() }),
+  useRouter: () => ({ replace: mockReplace, canDismiss: () => false, dismissTo: jest.fn() }),
+  useGlobalSearchParams: () => mockParams,
   Link: ({ children }: { children: React.ReactNode }) => children,
 }));
 
@@ -17,11 +20,11 @@ function fakeFetch(status: number, payload: unknown, calls: Call[]) {
   });
 }
 
-async function renderForm(onSignedIn = jest.fn()) {
+async function renderForm(onSignedIn: jest.Mock | null = jest.fn()) {
   const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
   await render(
     <QueryClientProvider client={client}>
-      <SignInForm onSignedIn={onSignedIn} />
+      <SignInForm onSignedIn={onSignedIn ?? undefined} />
     </QueryClientProvider>,
   );
   return onSignedIn;
@@ -31,6 +34,8 @@ describe("SignInForm", () => {
   const realFetch = global.fetch;
   afterEach(() => {
     global.fetch = realFetch;
+    mockReplace.mockReset();
+    mockParams = {};
   });
 
   it("asks for both fields before calling the server", async () => {
@@ -65,5 +70,19 @@ describe("SignInForm", () => {
     await fireEvent.press(screen.getByTestId("sign-in-submit"));
     await waitFor(() => expect(onSignedIn).toHaveBeenCalledTimes(1));
     expect(screen.queryByTestId("sign-in-error")).toBeNull();
+  });
+
+  it.each([
+    ["/layers?o=toluene%3A30", "/layers?o=toluene%3A30"],
+    ["//elsewhere.example/x", "/"],
+    ["https://elsewhere.example/", "/"],
+  ])("after signing in with next=%s goes to %s", async (next, expected) => {
+    mockParams = { next };
+    global.fetch = fakeFetch(200, { token: "t", user: { id: "u1", email: "kit@bench.example", name: "Kit" } }, []) as typeof fetch;
+    await renderForm(null);
+    await fireEvent.changeText(screen.getByTestId("sign-in-email"), "kit@bench.example");
+    await fireEvent.changeText(screen.getByTestId("sign-in-password"), "right-one-1");
+    await fireEvent.press(screen.getByTestId("sign-in-submit"));
+    await waitFor(() => expect(mockReplace).toHaveBeenCalledWith(expected));
   });
 });
