@@ -48,6 +48,7 @@ module.exports = {
       displayName: "ui",
       preset: "jest-expo",
       testMatch: ["<rootDir>/tests/ui/**/*.test.tsx"],
+      setupFiles: ["<rootDir>/tests/ui/setup-timers.ts"],
       // The preset's transforms, plus .mjs/.cjs through the same babel setup for ESM-only packages.
       transform: (() => {
         const preset = require("jest-expo/jest-preset").transform;
