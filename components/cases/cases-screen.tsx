@@ -97,7 +97,7 @@ export function CasesScreen() {
   const results = (() => {
     if (list.isPending) return <Loading label="Finding cases…" />;
     if (list.isError) return <ErrorState error={list.error} onRetry={() => list.refetch()} />;
-    const { cases, total } = list.data;
+    const { cases, total, totalIsLowerBound } = list.data;
     if (!cases.length) {
       return searching ? (
         <Empty
@@ -115,13 +115,18 @@ export function CasesScreen() {
     }
     const more =
       total > cases.length ? (
-        <Button label={`Show more (${total - cases.length} left)`} variant="secondary" onPress={() => setLimit((l) => l + PAGE)} testID="cases-more" />
+        <Button
+          label={totalIsLowerBound ? "Show more" : `Show more (${total - cases.length} left)`}
+          variant="secondary"
+          onPress={() => setLimit((l) => l + PAGE)}
+          testID="cases-more"
+        />
       ) : null;
     return (
       <View style={styles.results}>
         <View style={styles.countRow}>
           <Text size="label" tone="inkMuted" testID="cases-count" accessibilityLiveRegion="polite">
-            {total === 1 ? "1 case" : `${total} cases`}
+            {totalIsLowerBound ? `${total}+ cases` : total === 1 ? "1 case" : `${total} cases`}
             {list.isFetching || list.isPlaceholderData ? " · updating…" : query.q && !sort ? " · best match first" : ""}
           </Text>
           <ExportLink filters={query} />

@@ -5,3 +5,4 @@ export * from "./audit";
 export * from "./reference-overrides";
 export * from "./curation";
 export * from "./plans";
+export * from "./case-search";

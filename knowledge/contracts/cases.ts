@@ -414,7 +414,10 @@ export interface CaseSummary {
 
 export interface CaseListResponse {
   cases: CaseSummary[];
+  /** matching cases; a search counts at most 1,000 (see totalIsLowerBound) */
   total: number;
+  /** true when a search matched more than `total` cases and stopped counting */
+  totalIsLowerBound: boolean;
   limit: number;
   offset: number;
 }

@@ -49,6 +49,8 @@ type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
 type Db = Database | Tx;
 
 export const EXPORT_ROW_LIMIT = 10_000;
+/** A search ranks the newest this many matches and counts up to this many (then reports "at least"). */
+export const SEARCH_MATCH_CAP = 1_000;
 
 /** The author, a lead or an owner may change a case; every member reads it. */
 export function canEditCase(group: GroupContext, userId: string, authorId: string): boolean {
@@ -81,21 +83,9 @@ function startOfDay(value: string): Date {
   return new Date(/^\d{4}-\d{2}-\d{2}$/.test(value) ? `${value}T00:00:00.000Z` : value);
 }
 
-export function casesRouter({ db, mail, baseURL }: AppDeps): Router {
+export function casesRouter({ db, dbKind, mail, baseURL }: AppDeps): Router {
   const router = Router();
-  const vocabularies = new VocabularyCache();
-
-  async function vocabularyFor(groupId: string) {
-    const [v] = await db
-      .select({ n: count(), latest: max(cases.updatedAt) })
-      .from(cases)
-      .where(eq(cases.groupId, groupId));
-    const version = `${v?.n ?? 0}:${v?.latest?.toISOString() ?? ""}`;
-    return vocabularies.get(groupId, version, async () => {
-      const rows = await db.select({ t: cases.searchText }).from(cases).where(eq(cases.groupId, groupId));
-      return rows.map((r) => r.t);
-    });
-  }
+  const vocabularies = new VocabularyCache(db, { analyze: dbKind === "pglite" });
 
   /** WHERE and ORDER BY for a list query; every condition starts from the caller's group. */
   async function listQuery(req: Request, f: CaseListFilters) {
@@ -130,13 +120,11 @@ export function casesRouter({ db, mail, baseURL }: AppDeps): Router {
     let rank: SQL | null = null;
     const terms = f.q ? parseSearchQuery(f.q) : [];
     if (terms.length > 0) {
-      const vocab = await vocabularyFor(groupId);
+      const vocab = await vocabularies.get(groupId);
       const queries: string[] = [];
-      for (const term of terms) {
-        const tq = termTsQuery(term, vocab);
-        queries.push(`(${tq})`);
-        where.push(sql`${cases.searchVector} @@ to_tsquery('simple', ${tq})`);
-      }
+      for (const term of terms) queries.push(`(${termTsQuery(term, vocab)})`);
+      // Every term must match: one tsquery of them all, so each case's vector is tested once.
+      where.push(sql`${cases.searchVector} @@ to_tsquery('simple', ${queries.join(" & ")})`);
       rank = sql`ts_rank(${cases.searchVector}, to_tsquery('simple', ${queries.join(" | ")}))`;
     }
     const dir = f.order === "asc" ? asc : desc;
@@ -151,7 +139,7 @@ export function casesRouter({ db, mail, baseURL }: AppDeps): Router {
             : sort === "updatedAt"
               ? [dir(cases.updatedAt)]
               : [dir(cases.occurredAt)];
-    return { where: and(...where)!, orderBy: [...orderBy, asc(cases.id)] };
+    return { where: and(...where)!, orderBy: [...orderBy, asc(cases.id)], searching: terms.length > 0, rank: sort === "relevance" ? rank : null };
   }
 
   /** Case rows → summaries, with their attempts, photo counts and the caller's follows in three queries. */
@@ -193,19 +181,61 @@ export function casesRouter({ db, mail, baseURL }: AppDeps): Router {
     });
   }
 
-  async function listCases(req: Request, f: CaseListFilters, limit: number, offset: number) {
-    const { where, orderBy } = await listQuery(req, f);
-    // The total rides along as a window count, so the filters and the search run once.
+  /**
+   * A page of cases and the total. Without a search the total is exact. A search counts at most
+   * `cap` matches, and ranking by relevance considers only the newest `cap` of them (ranking
+   * every match of a broad word was most of a search's time in a large group); past the cap the
+   * total is a lower bound. Other orders still sort every match.
+   */
+  async function listCases(req: Request, f: CaseListFilters, limit: number, offset: number, cap = SEARCH_MATCH_CAP) {
+    const { where, orderBy, searching, rank } = await listQuery(req, f);
+    const userId = req.user!.id;
+    /** A search's total: the matches counted up to cap + 1 (unless the page query already did). */
+    const capped = async (counted: number | undefined) => {
+      const n = counted ?? Number((await db.select({ n: count() }).from(db.select({ one: sql`1` }).from(cases).where(where).limit(cap + 1).as("m")))[0]?.n ?? 0);
+      return { total: Math.min(n, cap), totalIsLowerBound: n > cap };
+    };
+    if (rank) {
+      // The newest cap + 1 matches, ranked in the same pass down the group/occurred index; the
+      // first cap are ordered by rank for the page, the one more says "at least".
+      const hits = db.$with("hits").as(
+        db
+          .select({ id: cases.id, occurredAt: cases.occurredAt, rank: sql<number>`${rank}`.as("rank") })
+          .from(cases)
+          .where(where)
+          .orderBy(desc(cases.occurredAt), desc(cases.id))
+          .limit(cap + 1),
+      );
+      const newest = db.select().from(hits).orderBy(desc(hits.occurredAt), desc(hits.id)).limit(cap).as("newest");
+      const byRank = f.order === "asc" ? asc : desc;
+      const page = db
+        .select()
+        .from(newest)
+        .orderBy(byRank(newest.rank), desc(newest.occurredAt), asc(newest.id))
+        .limit(limit)
+        .offset(offset)
+        .as("page");
+      const rows = await db
+        .with(hits)
+        .select({ ...caseColumns, authorName: user.name, matches: sql<number>`(select count(*) from ${hits})`.mapWith(Number) })
+        .from(page)
+        .innerJoin(cases, eq(cases.id, page.id))
+        .innerJoin(user, eq(user.id, cases.authorId))
+        .orderBy(byRank(page.rank), desc(page.occurredAt), asc(page.id));
+      return { cases: await summaries(rows, userId), ...(await capped(rows[0]?.matches)) };
+    }
+    // Without a search the total rides along as a window count, so the filters run once.
     const rows = await db
-      .select({ ...caseColumns, authorName: user.name, total: sql<number>`count(*) over ()`.mapWith(Number) })
+      .select({ ...caseColumns, authorName: user.name, total: (searching ? sql<number>`null` : sql<number>`count(*) over ()`).mapWith(Number) })
       .from(cases)
       .innerJoin(user, eq(user.id, cases.authorId))
       .where(where)
       .orderBy(...orderBy)
       .limit(limit)
       .offset(offset);
-    const totals = rows.length > 0 || offset === 0 ? [{ n: rows[0]?.total ?? 0 }] : await db.select({ n: count() }).from(cases).where(where);
-    return { cases: await summaries(rows, req.user!.id), total: Number(totals[0]?.n ?? 0) };
+    if (searching) return { cases: await summaries(rows, userId), ...(await capped(undefined)) };
+    const total = rows.length > 0 || offset === 0 ? (rows[0]?.total ?? 0) : Number((await db.select({ n: count() }).from(cases).where(where))[0]?.n ?? 0);
+    return { cases: await summaries(rows, userId), total, totalIsLowerBound: false };
   }
 
   async function similarTo(row: CaseRow): Promise<SimilarCase[]> {
@@ -319,14 +349,14 @@ export function casesRouter({ db, mail, baseURL }: AppDeps): Router {
 
   router.get("/cases", member, async (req, res) => {
     const f = parse(caseListQuery, req.query);
-    const { cases: list, total } = await listCases(req, f, f.limit, f.offset);
-    const body: CaseListResponse = { cases: list, total, limit: f.limit, offset: f.offset };
+    const { cases: list, total, totalIsLowerBound } = await listCases(req, f, f.limit, f.offset);
+    const body: CaseListResponse = { cases: list, total, totalIsLowerBound, limit: f.limit, offset: f.offset };
     res.json(body);
   });
 
   router.get("/cases/export.csv", member, async (req, res) => {
     const f = parse(caseListQuery, req.query);
-    const { cases: list } = await listCases(req, f, EXPORT_ROW_LIMIT, 0);
+    const { cases: list } = await listCases(req, f, EXPORT_ROW_LIMIT, 0, EXPORT_ROW_LIMIT);
     const header = [
       "id",
       "occurred",
