@@ -2,11 +2,10 @@ import { execFile } from "node:child_process";
 import fs from "node:fs";
 import http from "node:http";
 import type { AddressInfo } from "node:net";
-import os from "node:os";
 import path from "node:path";
 import { promisify } from "node:util";
 import zlib from "node:zlib";
-import { chromium } from "playwright-core";
+import { launchChromium } from "../scripts/chromium-launch";
 
 const run = promisify(execFile);
 const ROOT = path.resolve(__dirname, "..");
@@ -84,16 +83,6 @@ const SIGNED_IN: Record<string, unknown> = {
   },
 };
 
-const CHROMIUM_ARGS = [
-  "--headless",
-  "--no-sandbox",
-  "--disable-gpu",
-  "--disable-quic",
-  "--no-first-run",
-  "--disable-background-networking",
-  "--disable-component-update",
-  "--disable-sync",
-];
 
 /**
  * Opens "/" in headless Chromium with an empty cache and adds up every JS response the page
@@ -104,12 +93,7 @@ export async function firstScreenDownloads(
   baseUrl: string,
   opts: { scenario: string; signedIn?: boolean; landsOn: string; shows: RegExp },
 ): Promise<FirstScreen> {
-  const profile = fs.mkdtempSync(path.join(os.tmpdir(), "phasewise-bench-chromium-"));
-  const context = await chromium.launchPersistentContext(profile, {
-    executablePath: process.env.PHASEWISE_CHROMIUM ?? "/usr/bin/chromium",
-    viewport: { width: 390, height: 844 },
-    args: CHROMIUM_ARGS,
-  });
+  const { context, profile } = await launchChromium({ width: 390, height: 844 }, "phasewise-bench-chromium-");
   try {
     const page = context.pages()[0] ?? (await context.newPage());
     if (opts.signedIn) {

@@ -52,6 +52,12 @@ export const PLAN_BODY = {
   temperatureC: 20,
 };
 
+/** The routes measured, with the body each is sent. */
+const COMPUTE_ROUTES = [
+  ["/api/layers/predict", LAYER_BODY],
+  ["/api/plans/compute", PLAN_BODY],
+] as const;
+
 async function load(url: string, body: unknown, connections: number, durationS: number): Promise<LoadFigure> {
   const r = await autocannon({
     url,
@@ -105,10 +111,7 @@ export async function benchComputeApi(opts: { connections: number; durationS: nu
   const { child, match } = await startChild(path.join(ROOT, "bench/servers/app-server.ts"), { ready });
   const measured: { figure: LoadFigure; registered: boolean; status: number }[] = [];
   try {
-    for (const [route, body] of [
-      ["/api/layers/predict", LAYER_BODY],
-      ["/api/plans/compute", PLAN_BODY],
-    ] as const) {
+    for (const [route, body] of COMPUTE_ROUTES) {
       const url = `http://127.0.0.1:${match[1]}${route}`;
       const status = await answers(url, body);
       if (status !== 200) {
@@ -126,10 +129,7 @@ export async function benchComputeApi(opts: { connections: number; durationS: nu
   {
     const { child: c, match: m } = await startChild(path.join(ROOT, "bench/servers/compute-server.ts"), { ready });
     try {
-      for (const [route, body] of [
-        ["/api/layers/predict", LAYER_BODY],
-        ["/api/plans/compute", PLAN_BODY],
-      ] as const) {
+      for (const [route, body] of COMPUTE_ROUTES) {
         const url = `http://127.0.0.1:${m[1]}${route}`;
         if ((await answers(url, body)) !== 200) continue;
         await load(url, body, connections, Math.min(2, durationS));

@@ -1,5 +1,5 @@
 import express from "express";
-import type { AddressInfo } from "node:net";
+import { listenForBench } from "./listen";
 import type { AppDeps } from "../../server/deps";
 import { errorHandler } from "../../server/middleware/errors";
 import { layersRouter } from "../../server/routes/layers";
@@ -16,11 +16,4 @@ app.use(express.json({ limit: "1mb" }));
 const deps = {} as AppDeps;
 app.use("/api", layersRouter(deps), plansRouter(deps));
 app.use(errorHandler);
-const server = app.listen(0, "127.0.0.1", () => {
-  process.stdout.write(`READY ${(server.address() as AddressInfo).port}\n`);
-});
-process.on("SIGTERM", () => {
-  server.close();
-  server.closeAllConnections();
-  process.exit(0);
-});
+listenForBench(app);

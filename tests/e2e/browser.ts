@@ -1,7 +1,7 @@
 import fs from "node:fs";
-import os from "node:os";
 import path from "node:path";
-import { chromium, type BrowserContext, type Page } from "playwright-core";
+import type { BrowserContext, Page } from "playwright-core";
+import { launchChromium } from "../../scripts/chromium-launch";
 
 export const BASE_URL = process.env.PHASEWISE_E2E_URL ?? "";
 export const SHOTS_DIR = path.join(__dirname, "..", "..", "build", "screenshots");
@@ -13,21 +13,7 @@ export const WIDE = { width: 1280, height: 800 };
 
 /** A fresh Chromium profile per call (launch() refuses --user-data-dir; use a persistent context). */
 export async function openBrowser(viewport = PHONE): Promise<{ context: BrowserContext; page: Page; close: () => Promise<void> }> {
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), "phasewise-chromium-"));
-  const context = await chromium.launchPersistentContext(dir, {
-    executablePath: process.env.PHASEWISE_CHROMIUM ?? "/usr/bin/chromium",
-    viewport,
-    args: [
-      "--headless",
-      "--no-sandbox",
-      "--disable-gpu",
-      "--disable-quic",
-      "--no-first-run",
-      "--disable-background-networking",
-      "--disable-component-update",
-      "--disable-sync",
-    ],
-  });
+  const { context, profile: dir } = await launchChromium(viewport);
   const page = context.pages()[0] ?? (await context.newPage());
   return {
     context,
