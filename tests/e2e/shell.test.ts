@@ -13,7 +13,8 @@ describe("sign-in and the shell", () => {
       await page.getByTestId("sign-in-password").fill(DEMO.chemist.password);
       await page.getByTestId("sign-in-submit").click();
       await page.getByTestId("tab-bar").waitFor();
-      expect(await page.getByText("Hello, Kit").isVisible()).toBe(true);
+      // the greeting waits for the session's profile, which can land after the tab bar
+      await page.getByText("Hello, Kit").waitFor();
       expect(await page.getByTestId("side-rail").count()).toBe(0);
       // five tabs fit 390 px; the other areas are tiles on Home
       expect(await page.getByTestId("tab-bar").getByRole("link").count()).toBe(5);
