@@ -1,3 +1,5 @@
+import fs from "node:fs";
+import os from "node:os";
 import path from "node:path";
 import autocannon from "autocannon";
 import { ROOT, startChild } from "./child";
@@ -25,6 +27,11 @@ export interface ComputeApiReport {
    * validation, computation and JSON answer cost on their own, without the rest of the app.
    */
   handlersOnly: (LoadFigure & { throughputRatio: number })[];
+  /**
+   * The app's own answers to the sample bodies, sent by routes that do nothing else
+   * (bench/servers/same-answer-server.ts): what the answer's size costs on its own.
+   */
+  sameAnswer: (LoadFigure & { throughputRatio: number; answerBytes: number })[];
   /** registered: the route answered the sample body with 200 (status says what it answered) */
   routes: (LoadFigure & { throughputRatio: number; registered: boolean; status: number })[];
 }
@@ -78,9 +85,12 @@ async function load(url: string, body: unknown, connections: number, durationS: 
 }
 
 async function answers(url: string, body: unknown): Promise<number> {
+  return (await answerOf(url, body)).status;
+}
+
+async function answerOf(url: string, body: unknown): Promise<{ status: number; text: string }> {
   const res = await fetch(url, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
-  await res.arrayBuffer();
-  return res.status;
+  return { status: res.status, text: await res.text() };
 }
 
 /**
@@ -110,10 +120,12 @@ export async function benchComputeApi(opts: { connections: number; durationS: nu
   serviceTime.push(...bareService.splice(0));
   const { child, match } = await startChild(path.join(ROOT, "bench/servers/app-server.ts"), { ready });
   const measured: { figure: LoadFigure; registered: boolean; status: number }[] = [];
+  const appAnswers: Record<string, unknown> = {};
   try {
     for (const [route, body] of COMPUTE_ROUTES) {
       const url = `http://127.0.0.1:${match[1]}${route}`;
-      const status = await answers(url, body);
+      const { status, text } = await answerOf(url, body);
+      if (status === 200) appAnswers[route] = JSON.parse(text);
       if (status !== 200) {
         measured.push({ figure: { route, requestsPerSec: 0, p50Ms: 0, p99Ms: 0, non2xx: 0, errors: 0 }, registered: false, status });
         continue;
@@ -139,6 +151,23 @@ export async function benchComputeApi(opts: { connections: number; durationS: nu
       await c.stop();
     }
   }
+  const sameAnswer: (LoadFigure & { answerBytes: number })[] = [];
+  if (Object.keys(appAnswers).length > 0) {
+    const file = path.join(fs.mkdtempSync(path.join(os.tmpdir(), "phasewise-answers-")), "answers.json");
+    fs.writeFileSync(file, JSON.stringify(appAnswers));
+    const { child: c, match: m } = await startChild(path.join(ROOT, "bench/servers/same-answer-server.ts"), { ready, env: { PHASEWISE_BENCH_ANSWERS: file } });
+    try {
+      for (const [route, answer] of Object.entries(appAnswers)) {
+        const url = `http://127.0.0.1:${m[1]}${route}`;
+        const body = COMPUTE_ROUTES.find(([r]) => r === route)![1];
+        await load(url, body, connections, Math.min(2, durationS));
+        sameAnswer.push({ ...(await load(url, body, connections, durationS)), answerBytes: Buffer.byteLength(JSON.stringify(answer)) });
+      }
+    } finally {
+      await c.stop();
+      fs.rmSync(path.dirname(file), { recursive: true, force: true });
+    }
+  }
   await measureBare();
 
   const mean = (f: (x: LoadFigure) => number) => bareRuns.reduce((a, x) => a + f(x), 0) / bareRuns.length;
@@ -157,6 +186,7 @@ export async function benchComputeApi(opts: { connections: number; durationS: nu
     bare,
     bareRuns,
     handlersOnly: handlersOnly.map((f) => ({ ...f, throughputRatio: f.requestsPerSec / bare.requestsPerSec })),
+    sameAnswer: sameAnswer.map((f) => ({ ...f, throughputRatio: f.requestsPerSec / bare.requestsPerSec })),
     routes: measured.map(({ figure, registered, status }) => ({
       ...figure,
       registered,

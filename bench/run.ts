@@ -95,6 +95,9 @@ async function main() {
         const isLayer = r.route === "/api/layers/predict";
         rows.push({ area: "compute API", figure: `${r.route} p50 / p99`, value: `${ms(r.p50Ms)} / ${ms(r.p99Ms)}`, baseline: `${ms(a.bare.p50Ms)} / ${ms(a.bare.p99Ms)}`, ratio: x(r.p99Ms / Math.max(a.bare.p99Ms, 0.01)), target: isLayer ? `p99 ≤ ${TARGETS.layerP99Ms} ms` : "—", met: isLayer ? met(r.p99Ms <= TARGETS.layerP99Ms) : "—" });
       }
+      for (const s of a.sameAnswer) {
+        rows.push({ area: "compute API", figure: `${s.route}: its answer (${(s.answerBytes / 1024).toFixed(1)} KiB) sent with no work`, value: `${s.requestsPerSec.toFixed(0)} req/s`, baseline: bareRow, ratio: x(s.throughputRatio), target: "—", met: "—" });
+      }
       for (const h of a.handlersOnly) {
         const inApp = a.routes.find((r) => r.route === h.route);
         rows.push({ area: "compute API", figure: `${h.route} handlers alone on bare Express`, value: `${h.requestsPerSec.toFixed(0)} req/s`, baseline: bareRow, ratio: x(h.throughputRatio), target: "—", met: "—" });

@@ -12,6 +12,7 @@ import { plansRouter } from "../../server/routes/plans";
  * the app adds. Anonymous calls never touch the database, so none is opened. Prints "READY <port>".
  */
 const app = express();
+app.set("etag", false); // as in the app (server/app.ts)
 app.use(express.json({ limit: "1mb" }));
 const deps = {} as AppDeps;
 app.use("/api", layersRouter(deps), plansRouter(deps));
