@@ -36,11 +36,11 @@ export interface OpenOptions {
  * read new requests only between such turns, so a newly connected browser waited up to a minute
  * (tests/soak/load.test.ts). Here queries and transactions run in arrival order, one at a time,
  * and after SLICE_MS of them the next waits for a turn of the event loop (setImmediate), so
- * sockets are served at least every ~50 ms plus one query (10 ms and 50 ms slices gave the same
- * fairness; 50 ms kept ~4 % more throughput at 200 connections).
+ * sockets are served at least every ~10 ms plus one query. (50 ms slices kept ~4 % more
+ * throughput but let the slowest answer at 200 connections grow back to ~15 s; 10 ms: ~7 s.)
  * Queries inside a transaction run on its own handle and are not delayed.
  */
-const SLICE_MS = 50;
+const SLICE_MS = 10;
 
 export function takeTurns(client: PGlite): PGlite {
   // PGlite calls its own methods from inside a call (array types after a schema change):

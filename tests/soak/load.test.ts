@@ -10,7 +10,7 @@ import { client, freePort, prepareDataDir, signIn, startServer, type RunningServ
  * holding 2,000 cases, mixing list reads, case reads, searches, layer checks and case writes from
  * the three demo accounts. Loopback only, bounded by time. Zero 5xx, zero failed connections,
  * every acknowledged write readable afterwards, and no connection starved: the slowest answer
- * comes within a quarter of the run (the embedded database once held the event loop for a whole
+ * comes within a third of the run (the embedded database once held the event loop for a whole
  * queue of queries, and new connections waited in the accept queue for up to a minute; db/client.ts).
  */
 
@@ -107,6 +107,6 @@ describe(`${CONNECTIONS} connections for ${DURATION_MS / 1000} s`, () => {
     expect(lost).toEqual([]);
     expect(written.length).toBeGreaterThan(0);
     expect(all.length).toBeGreaterThan(CONNECTIONS);
-    expect(Math.max(...all)).toBeLessThan(DURATION_MS / 4);
+    expect(Math.max(...all)).toBeLessThan(DURATION_MS / 3);
   }, 300_000);
 });
