@@ -84,10 +84,6 @@ async function load(url: string, body: unknown, connections: number, durationS: 
   };
 }
 
-async function answers(url: string, body: unknown): Promise<number> {
-  return (await answerOf(url, body)).status;
-}
-
 async function answerOf(url: string, body: unknown): Promise<{ status: number; text: string }> {
   const res = await fetch(url, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
   return { status: res.status, text: await res.text() };
@@ -120,16 +116,17 @@ export async function benchComputeApi(opts: { connections: number; durationS: nu
   serviceTime.push(...bareService.splice(0));
   const { child, match } = await startChild(path.join(ROOT, "bench/servers/app-server.ts"), { ready });
   const measured: { figure: LoadFigure; registered: boolean; status: number }[] = [];
-  const appAnswers: Record<string, unknown> = {};
+  /** route → the app's answer to its sample body, as sent */
+  const appAnswers = new Map<string, string>();
   try {
     for (const [route, body] of COMPUTE_ROUTES) {
       const url = `http://127.0.0.1:${match[1]}${route}`;
       const { status, text } = await answerOf(url, body);
-      if (status === 200) appAnswers[route] = JSON.parse(text);
       if (status !== 200) {
         measured.push({ figure: { route, requestsPerSec: 0, p50Ms: 0, p99Ms: 0, non2xx: 0, errors: 0 }, registered: false, status });
         continue;
       }
+      appAnswers.set(route, text);
       await load(url, body, connections, Math.min(2, durationS));
       serviceTime.push(await load(url, body, 1, Math.min(3, durationS)));
       measured.push({ figure: await load(url, body, connections, durationS), registered: true, status });
@@ -143,7 +140,7 @@ export async function benchComputeApi(opts: { connections: number; durationS: nu
     try {
       for (const [route, body] of COMPUTE_ROUTES) {
         const url = `http://127.0.0.1:${m[1]}${route}`;
-        if ((await answers(url, body)) !== 200) continue;
+        if ((await answerOf(url, body)).status !== 200) continue;
         await load(url, body, connections, Math.min(2, durationS));
         handlersOnly.push(await load(url, body, connections, durationS));
       }
@@ -152,16 +149,17 @@ export async function benchComputeApi(opts: { connections: number; durationS: nu
     }
   }
   const sameAnswer: (LoadFigure & { answerBytes: number })[] = [];
-  if (Object.keys(appAnswers).length > 0) {
+  if (appAnswers.size > 0) {
     const file = path.join(fs.mkdtempSync(path.join(os.tmpdir(), "phasewise-answers-")), "answers.json");
-    fs.writeFileSync(file, JSON.stringify(appAnswers));
+    fs.writeFileSync(file, JSON.stringify(Object.fromEntries([...appAnswers].map(([route, text]) => [route, JSON.parse(text) as unknown]))));
     const { child: c, match: m } = await startChild(path.join(ROOT, "bench/servers/same-answer-server.ts"), { ready, env: { PHASEWISE_BENCH_ANSWERS: file } });
     try {
-      for (const [route, answer] of Object.entries(appAnswers)) {
+      for (const [route, body] of COMPUTE_ROUTES) {
+        const text = appAnswers.get(route);
+        if (text === undefined) continue;
         const url = `http://127.0.0.1:${m[1]}${route}`;
-        const body = COMPUTE_ROUTES.find(([r]) => r === route)![1];
         await load(url, body, connections, Math.min(2, durationS));
-        sameAnswer.push({ ...(await load(url, body, connections, durationS)), answerBytes: Buffer.byteLength(JSON.stringify(answer)) });
+        sameAnswer.push({ ...(await load(url, body, connections, durationS)), answerBytes: Buffer.byteLength(text) });
       }
     } finally {
       await c.stop();

@@ -12,7 +12,6 @@ const QUERIES = 300;
 
 /** Queues QUERIES small queries, then counts how many had finished when the event loop next turned. */
 async function finishedBeforeTheLoopTurned(client: PGlite): Promise<{ finished: number; order: number[] }> {
-  await client.query("create temporary table if not exists t (n int)");
   let finished = 0;
   const order: number[] = [];
   const all = Array.from({ length: QUERIES }, (_, i) =>
